@@ -1,0 +1,2 @@
+/** Cell functions: filled in by its module's work. */
+export {};

@@ -1,0 +1,2 @@
+/** Public surface of the statistics core. */
+export * from './types';
