@@ -1,0 +1,2 @@
+/** Task pane entry (placeholder until the panel lands). */
+export {};

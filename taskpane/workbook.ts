@@ -1,0 +1,50 @@
+/**
+ * The small workbook interface the panel talks to. Two implementations: excel-workbook.ts (Office.js, inside
+ * Excel) and the workbench's grid (workbench/). Rendering never calls a host directly: only through this.
+ *
+ * Addresses are A1-style with a sheet, e.g. "Staff!B2:B49". Row numbers are sheet rows (1-based).
+ */
+
+/** A rectangular block of cells read from the workbook. */
+export interface RangeRead {
+  /** Full address with sheet, e.g. "Staff!B2:B49". */
+  address: string;
+  sheet: string;
+  /** First sheet row (1-based) and first column (1-based) of the block. */
+  firstRow: number;
+  firstColumn: number;
+  /** Cell values as the host gives them: numbers, strings, booleans, null or "" for blanks. */
+  values: unknown[][];
+}
+
+/** A named table (Excel table, or a block of the workbench with a header row). */
+export interface TableInfo {
+  name: string;
+  sheet: string;
+  columns: string[];
+}
+
+/** A column picked by the user: either a fixed range or a table column that follows the table as it grows. */
+export type ColumnSource =
+  | { kind: 'range'; address: string }
+  | { kind: 'table'; table: string; column: string };
+
+export interface Workbook {
+  /** Address of the current selection (may span several columns). */
+  getSelection(): Promise<string>;
+  /** Tables with a header row, for picking columns by header. */
+  listTables(): Promise<TableInfo[]>;
+  /** Reads a column source; for a range the header is the first cell when it is text, else the address. */
+  readColumn(source: ColumnSource): Promise<RangeRead & { header: string }>;
+  /** Reads any range by address. */
+  readRange(address: string): Promise<RangeRead>;
+  /** Calls onChange (possibly many times; the caller debounces) when any watched source may have changed.
+   *  Returns a function that stops watching. */
+  watch(sources: ColumnSource[], onChange: () => void): Promise<() => void>;
+  /** Selects a whole sheet row (1-based) so the user sees it. */
+  selectRow(sheet: string, row: number): Promise<void>;
+  /** Writes values or formulas ("=COVARY.COEF(...)") into a block starting at the top-left cell address. */
+  writeCells(topLeft: string, cells: (string | number)[][]): Promise<void>;
+  /** Adds a new sheet (a unique name derived from `name`) holding the given cells; returns its name. */
+  addSheet(name: string, cells: (string | number)[][]): Promise<string>;
+}

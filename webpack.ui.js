@@ -1,0 +1,22 @@
+/* The two pages: the task pane (inside Excel, shared runtime with functions.js) and the Office-free workbench.
+ * Both carry a strict Content-Security-Policy in their HTML templates. */
+const path = require('path');
+const HtmlWebpackPlugin = require('html-webpack-plugin');
+
+module.exports = (mode, common) => [
+  {
+    ...common(mode),
+    name: 'pages',
+    entry: {
+      taskpane: './taskpane/taskpane.ts',
+      workbench: './workbench/workbench.ts',
+      'formula-worker': './workbench/formula-worker.ts',
+    },
+    output: { path: path.resolve(__dirname, 'dist'), filename: '[name].js', clean: false },
+    optimization: { splitChunks: false, runtimeChunk: false },
+    plugins: [
+      new HtmlWebpackPlugin({ filename: 'taskpane.html', template: './taskpane/taskpane.html', chunks: ['taskpane'], inject: 'body', scriptLoading: 'blocking' }),
+      new HtmlWebpackPlugin({ filename: 'workbench.html', template: './workbench/workbench.html', chunks: ['workbench'], inject: 'body', scriptLoading: 'blocking' }),
+    ],
+  },
+];

@@ -1,0 +1,2 @@
+/** Formula worker entry (placeholder until the workbench lands). */
+export {};

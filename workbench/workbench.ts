@@ -1,0 +1,2 @@
+/** Workbench entry (placeholder until the workbench lands). */
+export {};
