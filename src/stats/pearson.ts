@@ -14,7 +14,10 @@ export function assertVaries(m: CoMoments, xName = 'x', yName = 'y'): void {
 
 /** Pearson's r from co-moments (Pearson 1896, Phil. Trans. R. Soc. A 187:253-318), clipped to [-1, 1]. */
 export function pearsonFromMoments(m: CoMoments): number {
-  return clipUnit(m.sxy / (Math.sqrt(m.sxx) * Math.sqrt(m.syy)));
+  const prod = m.sxx * m.syy;
+  // One rounding in the product and one in the root; the split form only where the product would leave range.
+  const denom = prod > 1e-300 && prod < 1e300 ? Math.sqrt(prod) : Math.sqrt(m.sxx) * Math.sqrt(m.syy);
+  return clipUnit(m.sxy / denom);
 }
 
 /**
