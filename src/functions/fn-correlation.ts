@@ -1,0 +1,90 @@
+/**
+ * Cell functions for one correlation: the coefficient, its interval, its p-value, the pairs used, and the check
+ * of a correlation reported elsewhere. Thin adapter: read cells, call the core, shape the answer.
+ */
+import { checkReported, correlate } from '../stats/correlate';
+import { CorrelationResult } from '../stats/types';
+import { StatsInputError } from '../stats/types';
+import { guard, optLevel, optMethod, optTail, readPairs, requirePairs, requiredNumber, CellRange } from './cells';
+
+function run(x: CellRange, y: CellRange, method: unknown, tail: unknown, level: unknown): CorrelationResult {
+  const opts = { method: optMethod(method), tail: optTail(tail), level: optLevel(level) };
+  const p = readPairs(x, y);
+  requirePairs(p, 3);
+  return correlate(p.x, p.y, opts);
+}
+
+/**
+ * The correlation between two columns of numbers. Rows where either cell is blank, text or TRUE/FALSE are skipped.
+ * @customfunction COEF
+ * @param x First column (or row) of numbers.
+ * @param y Second column (or row) of numbers, the same size as x.
+ * @param [method] "pearson" (default, straight-line association), "spearman" (rank order) or "kendall" (rank agreement, robust for small samples with ties).
+ * @returns The coefficient, between -1 and 1.
+ */
+export function COEF(x: any[][], y: any[][], method?: string): number {
+  return guard(() => run(x, y, method, null, null).statistic);
+}
+
+/**
+ * The confidence interval for the correlation between two columns: the range of true correlations the data are consistent with.
+ * @customfunction INTERVAL
+ * @param x First column (or row) of numbers.
+ * @param y Second column (or row) of numbers, the same size as x.
+ * @param [level] Confidence level between 0 and 1, default 0.95 (95%).
+ * @param [method] "pearson" (default), "spearman" or "kendall".
+ * @returns One row of two cells: lower bound, upper bound.
+ */
+export function INTERVAL(x: any[][], y: any[][], level?: number, method?: string): number[][] {
+  return guard(() => {
+    const res = run(x, y, method, null, level);
+    if (!Number.isFinite(res.interval.lower)) {
+      const need = res.method === 'kendall' ? 5 : 4;
+      throw new StatsInputError('too-few', `only ${res.n} usable pairs: an interval needs at least ${need}`);
+    }
+    return [[res.interval.lower, res.interval.upper]];
+  });
+}
+
+/**
+ * The p-value for the correlation between two columns: how often data at least this far from "no correlation" would turn up by chance if the true correlation were zero.
+ * @customfunction PVALUE
+ * @param x First column (or row) of numbers.
+ * @param y Second column (or row) of numbers, the same size as x.
+ * @param [tail] "both" (default: any correlation), "positive" (only a positive correlation counts) or "negative".
+ * @param [method] "pearson" (default), "spearman" or "kendall".
+ * @returns The p-value, between 0 and 1.
+ */
+export function PVALUE(x: any[][], y: any[][], tail?: string, method?: string): number {
+  return guard(() => run(x, y, method, tail, null).pValue);
+}
+
+/**
+ * The number of complete pairs used: rows where both cells hold numbers.
+ * @customfunction PAIRS
+ * @param x First column (or row).
+ * @param y Second column (or row), the same size as x.
+ * @returns The count of rows used by COEF, INTERVAL and PVALUE.
+ */
+export function PAIRS(x: any[][], y: any[][]): number {
+  return guard(() => readPairs(x, y).x.length);
+}
+
+/**
+ * Checks a correlation reported elsewhere (a paper, a slide, a vendor) from just r and the number of pairs: its confidence interval and p-value.
+ * @customfunction REPORTED
+ * @param r The reported correlation, strictly between -1 and 1.
+ * @param n The number of pairs it was computed from, at least 4.
+ * @param [level] Confidence level between 0 and 1, default 0.95.
+ * @param [tail] "both" (default), "positive" or "negative".
+ * @param [method] Which coefficient was reported: "pearson" (default), "spearman" or "kendall".
+ * @returns One row: lower bound, upper bound, p-value.
+ */
+export function REPORTED(r: number, n: number, level?: number, tail?: string, method?: string): number[][] {
+  return guard(() => {
+    const res = checkReported(requiredNumber(r, 'r'), requiredNumber(n, 'n'), {
+      method: optMethod(method), tail: optTail(tail), level: optLevel(level),
+    });
+    return [[res.interval.lower, res.interval.upper, res.pValue]];
+  });
+}
