@@ -7,6 +7,11 @@
  * - blanks (null, undefined, ""), text (also text that looks like a number), booleans and error values are
  *   skipped, pairwise: a row is used only when both its x and y cells are numbers. This follows the spreadsheet
  *   convention that TRUE/FALSE inside a range are not numbers.
+ *
+ * Blanks passed as 0: some desktop builds of Excel pass an empty cell to a custom function as the number 0, which
+ * no function can tell from a typed 0. A long run of rows at the end of the ranges where both cells are 0 is the
+ * signature of that (an over-long or whole-column reference such as B:B); such input is refused with a message
+ * rather than answered with a wrong number. Shorter runs cannot be told apart from real zeros: the README says so.
  */
 import { StatsInputError, Tail, Method, TAILS, METHODS } from '../stats/types';
 
@@ -71,6 +76,7 @@ export function readPairs(xRange: CellRange, yRange: CellRange, xName = 'x', yNa
   }
   const xs = readVector(xRange, xName);
   const ys = readVector(yRange, yName);
+  refuseBlanksAsZeros(xs, ys, xName, yName);
   let used = 0;
   for (let k = 0; k < nx; k++) if (xs[k] === xs[k] && ys[k] === ys[k]) used++;
   const x = new Float64Array(used);
@@ -88,6 +94,24 @@ export function readPairs(xRange: CellRange, yRange: CellRange, xName = 'x', yNa
     }
   }
   return { x, y, index, total: nx, skipped: nx - used };
+}
+
+/** Trailing rows where both cells are 0 from which the input is taken for blanks passed as zeros. */
+export const ZERO_TAIL_LIMIT = 100;
+
+/** Refuses ranges ending in ZERO_TAIL_LIMIT or more rows of (0, 0): see the note at the top of this file. */
+function refuseBlanksAsZeros(xs: Float64Array, ys: Float64Array, xName: string, yName: string): void {
+  const n = xs.length;
+  let k = n - 1;
+  while (k >= 0 && xs[k] === 0 && ys[k] === 0) k--;
+  const run = n - 1 - k;
+  if (run >= ZERO_TAIL_LIMIT) {
+    throw new StatsInputError(
+      'out-of-range',
+      `the last ${run} rows of ${xName} and ${yName} are all 0: these look like empty cells that this version of Excel passes as 0. ` +
+        'Pass only the filled rows (e.g. B2:B500) or a table column instead of a whole column',
+    );
+  }
 }
 
 /** Requires at least `min` complete pairs. */

@@ -106,3 +106,21 @@ describe('bad input: host errors with messages a spreadsheet user understands', 
     expect(INTERVAL(col([1, 2, 3, 4]), col([2, 4, 6, 8]))).toEqual([[1, 1]]);
   });
 });
+
+describe('blanks that a host passes as 0', () => {
+  test('a whole-column reference whose empty tail arrives as zeros is refused with a message, not answered', () => {
+    const x = [...HW_X, ...new Array(5000).fill(0)];
+    const y = [...HW_Y, ...new Array(5000).fill(0)];
+    const e = cellError(() => COEF(col(x), col(y)));
+    expect(e.code).toBe('#VALUE!');
+    expect(e.message).toMatch(/last 5000 rows of x and y are all 0: these look like empty cells/);
+  });
+  test('the same tail as null (Excel on the web) is simply skipped', () => {
+    const x = [...HW_X, ...new Array(5000).fill(null)];
+    const y = [...HW_Y, ...new Array(5000).fill(null)];
+    expectRel(COEF(col(x), col(y)), 0.571181557563829, 1e-9);
+  });
+  test('a few genuine (0, 0) rows still count', () => {
+    expect(PAIRS(col([...HW_X, 0, 0]), col([...HW_Y, 0, 0]))).toBe(11);
+  });
+});
