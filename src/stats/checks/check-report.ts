@@ -1,0 +1,87 @@
+/** Shared shapes of the assumption checks: one object per (x, y), read by the cell functions and the panel. */
+
+/** A check's outcome: "ok" (no sign of trouble), "flag" (trouble found), "not testable" (with its reason). */
+export type Verdict = 'ok' | 'flag' | 'not testable';
+
+/** The eight checks, always in this order. */
+export type CheckKey =
+  | 'normal-x'
+  | 'normal-y'
+  | 'normal-residuals'
+  | 'straight-line'
+  | 'even-spread'
+  | 'outliers'
+  | 'influence'
+  | 'row-order';
+
+export const CHECK_KEYS: readonly CheckKey[] = [
+  'normal-x',
+  'normal-y',
+  'normal-residuals',
+  'straight-line',
+  'even-spread',
+  'outliers',
+  'influence',
+  'row-order',
+];
+
+/** One row of the checks table. */
+export interface CheckRow {
+  key: CheckKey;
+  /** Short name of what is checked, e.g. "Straight line". */
+  label: string;
+  /** The test used, e.g. "Shapiro-Wilk W"; for a not-testable row, the test that would have been used. */
+  test: string;
+  /** The test statistic (signed for the outlier row), or null when there is none. */
+  statistic: number | null;
+  /** The p-value, or null when the check has none (Cook's distance, leverage) or did not run. */
+  pValue: number | null;
+  verdict: Verdict;
+  /** One plain sentence saying what the result means for the correlation (or why the check could not run). */
+  meaning: string;
+  /** Why the check could not run; present only when verdict is "not testable". */
+  reason?: string;
+  /** A few words for the list of raised flags, e.g. "curved"; present only when verdict is "flag". */
+  flag?: string;
+  /** The point (0-based index into the pairs) the row is about: the outlier row and the influence row. */
+  point?: number;
+  /** Further figures behind the row, e.g. skewness, excess kurtosis, df, cut-off. */
+  detail: Record<string, number>;
+}
+
+/** Per-point values for plots; every array has one entry per pair, in the order given. NaN = undefined there. */
+export interface PointDiagnostics {
+  fitted: Float64Array;
+  residuals: Float64Array;
+  /** Externally studentized residuals (NaN at leverage 1 or with fewer than 4 points; +/-Infinity when all
+   * other points lie exactly on a line). */
+  studentized: Float64Array;
+  /** Hat values. */
+  leverage: Float64Array;
+  /** Cook's distances (NaN at leverage 1 or when the points lie exactly on a line). */
+  cooksDistance: Float64Array;
+  /** Points whose Bonferroni outlier p-value is below alpha, ascending. */
+  outliers: number[];
+  /** Points whose Cook's distance exceeds the median of F(2, n - 2), ascending. */
+  influential: number[];
+  /** The point whose leverage is at least 0.99 (it sets the slope on its own), or -1. */
+  setsSlope: number;
+  /** Union of the three above, ascending. */
+  flagged: number[];
+}
+
+/** Everything the checks found for one (x, y). */
+export interface CheckReport {
+  /** Pairs checked. */
+  n: number;
+  alpha: number;
+  /** The least-squares line the residual checks refer to. */
+  line: { slope: number; intercept: number; rss: number };
+  /** Exactly eight rows, in CHECK_KEYS order. */
+  checks: CheckRow[];
+  /** The flag words of the flagged rows, in row order (empty when nothing was flagged). */
+  flags: string[];
+  /** How many rows are not testable. */
+  notTestable: number;
+  points: PointDiagnostics;
+}

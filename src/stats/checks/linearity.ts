@@ -1,0 +1,125 @@
+import { powerOfTwoScale } from '../comoments';
+import { fSf } from '../distributions';
+import { StatsInputError } from '../types';
+
+/** The F test for adding x^2 to a straight-line fit. */
+export interface CurvatureTest {
+  n: number;
+  /** F = (RSS_line - RSS_quadratic) / (RSS_quadratic / (n - 3)); Infinity when a parabola fits exactly. */
+  statistic: number;
+  df1: 1;
+  df2: number;
+  pValue: number;
+  /** Which way the points bend away from the line: "up" (convex, U-like) or "down" (concave). */
+  bend: 'up' | 'down';
+}
+
+/** Number of distinct values, stopping at 3 (only "one", "two" or "three or more" matters). */
+export function distinctUpToThree(v: ArrayLike<number>): number {
+  const n = v.length;
+  if (n === 0) return 0;
+  const a = v[0];
+  let b = NaN;
+  for (let i = 1; i < n; i++) {
+    const c = v[i];
+    if (c === a || c === b) continue;
+    if (b !== b) b = c;
+    else return 3;
+  }
+  return b !== b ? 1 : 2;
+}
+
+/** Dot product. */
+function dot(a: Float64Array, b: Float64Array): number {
+  let s = 0;
+  for (let i = 0; i < a.length; i++) s += a[i] * b[i];
+  return s;
+}
+
+/** Removes from v its mean and its component along the centred vector c (c . c = cc). */
+function orthogonalize(v: Float64Array, c: Float64Array, cc: number): void {
+  const n = v.length;
+  let mean = 0;
+  for (let i = 0; i < n; i++) mean += v[i];
+  mean /= n;
+  for (let i = 0; i < n; i++) v[i] -= mean;
+  const k = dot(c, v) / cc;
+  for (let i = 0; i < n; i++) v[i] -= k * c[i];
+}
+
+/**
+ * Is the straight line the right shape? The partial F test for adding x^2 to the least-squares line
+ * y = a + b x (one numerator df, n - 3 denominator df). With one predictor this is Ramsey's RESET with the squared
+ * fitted values (Ramsey 1969, "Tests for specification errors in classical linear least-squares regression
+ * analysis", J. R. Stat. Soc. B 31:350-371): a + b x and (a + b x)^2 span the same space as 1, x, x^2 whenever
+ * b != 0, so the two F statistics coincide.
+ *
+ * Computed without forming the quadratic's normal equations: x is centred and scaled by a power of two, its square
+ * is made orthogonal to 1 and x by Gram-Schmidt applied twice (Kahan's "twice is enough"; Parlett 1980, The Symmetric Eigenvalue Problem), and the
+ * straight-line residuals are regressed on what is left. That keeps the test exact-to-rounding even for x with a
+ * large offset, where x and x^2 are nearly collinear. O(n).
+ *
+ * @param x the predictor
+ * @param residuals the straight-line residuals y - (a + b x), e.g. fitLine(x, y).residuals
+ * @throws StatsInputError for fewer than 4 points, fewer than 3 distinct x values, or x values too close together
+ *   to separate a curve from a line.
+ */
+export function curvatureTest(x: ArrayLike<number>, residuals: ArrayLike<number>): CurvatureTest {
+  const n = x.length;
+  if (residuals.length !== n) throw new StatsInputError('unequal-length', 'x and the residuals must have the same length');
+  if (n < 4) throw new StatsInputError('too-few', 'testing for a curve needs at least 4 points');
+  if (distinctUpToThree(x) < 3) {
+    throw new StatsInputError('constant', 'x takes only two values, so curvature cannot be tested');
+  }
+  // Centred, power-of-two-scaled x (exact scaling) and its square.
+  let mean = 0;
+  for (let i = 0; i < n; i++) mean += x[i];
+  mean /= n;
+  const c = new Float64Array(n);
+  for (let i = 0; i < n; i++) c[i] = x[i] - mean;
+  const sc = powerOfTwoScale(c);
+  for (let i = 0; i < n; i++) c[i] /= sc;
+  let cMean = 0;
+  for (let i = 0; i < n; i++) cMean += c[i];
+  cMean /= n;
+  for (let i = 0; i < n; i++) c[i] -= cMean;
+  const cc = dot(c, c);
+  const q = new Float64Array(n);
+  for (let i = 0; i < n; i++) q[i] = c[i] * c[i];
+  let qMean = 0;
+  for (let i = 0; i < n; i++) qMean += q[i];
+  qMean /= n;
+  let qq0 = 0;
+  for (let i = 0; i < n; i++) qq0 += (q[i] - qMean) * (q[i] - qMean);
+  orthogonalize(q, c, cc);
+  orthogonalize(q, c, cc);
+  const qq = dot(q, q);
+  // The part of x^2 that a line cannot reproduce is lost in rounding: as good as two distinct values.
+  if (!(qq > 1e-14 * qq0)) {
+    throw new StatsInputError('constant', 'the x values are too close together to tell a curve from a line');
+  }
+  const se = powerOfTwoScale(residuals);
+  const e = new Float64Array(n);
+  for (let i = 0; i < n; i++) e[i] = residuals[i] / se;
+  // Least-squares residuals are orthogonal to 1 and x; this removes what rounding in the line fit left behind.
+  orthogonalize(e, c, cc);
+  const beta = dot(e, q) / qq;
+  const reduction = beta * beta * qq;
+  // Residuals of the quadratic fit, summed directly rather than as RSS_line - reduction, which would cancel when
+  // a parabola fits almost exactly.
+  let rssQuadratic = 0;
+  for (let i = 0; i < n; i++) {
+    const r = e[i] - beta * q[i];
+    rssQuadratic += r * r;
+  }
+  const df2 = n - 3;
+  const statistic = rssQuadratic > 0 ? reduction / (rssQuadratic / df2) : Infinity;
+  return {
+    n,
+    statistic,
+    df1: 1,
+    df2,
+    pValue: statistic === Infinity ? 0 : fSf(statistic, 1, df2),
+    bend: beta >= 0 ? 'up' : 'down',
+  };
+}
