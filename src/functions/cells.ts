@@ -74,8 +74,15 @@ export function readPairs(xRange: CellRange, yRange: CellRange, xName = 'x', yNa
   if (nx !== ny) {
     throw new StatsInputError('unequal-length', `${xName} and ${yName} must hold the same number of cells (${nx} and ${ny})`);
   }
-  const xs = readVector(xRange, xName);
-  const ys = readVector(yRange, yName);
+  return readPairsFromVectors(readVector(xRange, xName), readVector(yRange, yName), xName, yName);
+}
+
+/** Pairs two vectors already read (NaN marks a cell that does not count). */
+export function readPairsFromVectors(xs: Float64Array, ys: Float64Array, xName = 'x', yName = 'y'): PairedColumns {
+  const nx = xs.length;
+  if (ys.length !== nx) {
+    throw new StatsInputError('unequal-length', `${xName} and ${yName} must hold the same number of cells (${nx} and ${ys.length})`);
+  }
   refuseBlanksAsZeros(xs, ys, xName, yName);
   let used = 0;
   for (let k = 0; k < nx; k++) if (xs[k] === xs[k] && ys[k] === ys[k]) used++;

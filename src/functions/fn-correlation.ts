@@ -2,16 +2,17 @@
  * Cell functions for one correlation: the coefficient, its interval, its p-value, the pairs used, and the check
  * of a correlation reported elsewhere. Thin adapter: read cells, call the core, shape the answer.
  */
-import { checkReported, correlate } from '../stats/correlate';
+import { checkReported, correlatePrepared } from '../stats/correlate';
 import { CorrelationResult } from '../stats/types';
 import { StatsInputError } from '../stats/types';
-import { guard, optLevel, optMethod, optTail, readPairs, requirePairs, requiredNumber, CellRange } from './cells';
+import { guard, optLevel, optMethod, optTail, requirePairs, requiredNumber, CellRange } from './cells';
+import { sharedPairs } from './shared-pairs';
 
 function run(x: CellRange, y: CellRange, method: unknown, tail: unknown, level: unknown): CorrelationResult {
   const opts = { method: optMethod(method), tail: optTail(tail), level: optLevel(level) };
-  const p = readPairs(x, y);
-  requirePairs(p, 3);
-  return correlate(p.x, p.y, opts);
+  const { pairs, prepared } = sharedPairs(x, y);
+  requirePairs(pairs, 3);
+  return correlatePrepared(prepared, opts);
 }
 
 /**
@@ -67,7 +68,7 @@ export function PVALUE(x: any[][], y: any[][], tail?: string, method?: string): 
  * @returns The count of rows used by COEF, INTERVAL and PVALUE.
  */
 export function PAIRS(x: any[][], y: any[][]): number {
-  return guard(() => readPairs(x, y).x.length);
+  return guard(() => sharedPairs(x, y).pairs.x.length);
 }
 
 /**

@@ -1,8 +1,6 @@
-import { coMoments } from './comoments';
-import { exactDiscordantTails, kendallCounts, KendallCounts, tauB, varianceOfS } from './kendall';
+import { exactDiscordantTails, KendallCounts, tauB, varianceOfS } from './kendall';
 import { assertVaries, clipUnit, pearsonFromMoments } from './pearson';
-import { averageRanks } from './ranks';
-import { argsort } from './sort';
+import { PreparedPairs } from './prepared';
 import { fisherInterval, pFromT, pFromZ, tFromR } from './fisher';
 import { CoefficientName, CorrelationResult, Interval, Method, StatsInputError, Tail } from './types';
 
@@ -96,14 +94,18 @@ export function kendallPValue(c: KendallCounts, tail: Tail): { p: number; test: 
  * @example correlate(x, y, { method: 'pearson', tail: 'both', level: 0.95 }).statistic
  */
 export function correlate(x: ArrayLike<number>, y: ArrayLike<number>, opts: CorrelateOptions): CorrelationResult {
-  const n = x.length;
-  if (y.length !== n) throw new StatsInputError('unequal-length', 'x and y must hold the same number of values');
+  if (y.length !== x.length) throw new StatsInputError('unequal-length', 'x and y must hold the same number of values');
+  return correlatePrepared(new PreparedPairs(x, y), opts);
+}
+
+/** As correlate, on prepared columns whose ranks, counts and moments are shared with other callers. */
+export function correlatePrepared(prep: PreparedPairs, opts: CorrelateOptions): CorrelationResult {
+  const { x, y, n } = prep;
   if (n < 3) throw new StatsInputError('too-few', `only ${n} usable pairs: at least 3 are needed`);
   const { method, tail, level } = opts;
   if (method === 'kendall') {
-    const m = coMoments(x, y);
-    assertVaries(m);
-    const c = kendallCounts(x, y);
+    assertVaries(prep.moments);
+    const c = prep.kendall;
     const r = tauB(c);
     const pv = kendallPValue(c, tail);
     return {
@@ -114,14 +116,13 @@ export function correlate(x: ArrayLike<number>, y: ArrayLike<number>, opts: Corr
   let r: number;
   let name: CoefficientName;
   if (method === 'spearman') {
-    const rx = averageRanks(x, argsort(x));
-    const ry = averageRanks(y, argsort(y));
-    const m = coMoments(rx, ry);
+    assertVaries(prep.moments);
+    const m = prep.rankMoments;
     assertVaries(m);
     r = pearsonFromMoments(m);
     name = 'Spearman';
   } else {
-    const m = coMoments(x, y);
+    const m = prep.moments;
     assertVaries(m);
     r = pearsonFromMoments(m);
     name = pearsonName(x, y);

@@ -1,0 +1,58 @@
+import { coMoments, CoMoments } from './comoments';
+import { kendallCounts, KendallCounts } from './kendall';
+import { averageRanks } from './ranks';
+import { fitLine, LineFit } from './regression';
+import { argsort } from './sort';
+
+/**
+ * Two paired columns with the expensive intermediate results computed once, on first use: co-moments, ranks,
+ * Kendall's counts, the line fit, and anything else a caller memoises by key (assumption checks, say). Every cell
+ * function and the panel that look at the same data share one of these, so sorting a million rows happens once
+ * per recalculation, not once per function.
+ */
+export class PreparedPairs {
+  readonly x: Float64Array;
+  readonly y: Float64Array;
+  private readonly memos = new Map<string, unknown>();
+
+  constructor(x: ArrayLike<number>, y: ArrayLike<number>) {
+    this.x = x instanceof Float64Array ? x : Float64Array.from(x);
+    this.y = y instanceof Float64Array ? y : Float64Array.from(y);
+  }
+
+  get n(): number {
+    return this.x.length;
+  }
+
+  /** Memoised value for `key`; `compute` runs at most once per key (unless it throws). */
+  memo<T>(key: string, compute: () => T): T {
+    if (this.memos.has(key)) return this.memos.get(key) as T;
+    const v = compute();
+    this.memos.set(key, v);
+    return v;
+  }
+
+  get moments(): CoMoments {
+    return this.memo('moments', () => coMoments(this.x, this.y));
+  }
+
+  get ranksX(): Float64Array {
+    return this.memo('ranksX', () => averageRanks(this.x, argsort(this.x)));
+  }
+
+  get ranksY(): Float64Array {
+    return this.memo('ranksY', () => averageRanks(this.y, argsort(this.y)));
+  }
+
+  get rankMoments(): CoMoments {
+    return this.memo('rankMoments', () => coMoments(this.ranksX, this.ranksY));
+  }
+
+  get kendall(): KendallCounts {
+    return this.memo('kendall', () => kendallCounts(this.x, this.y));
+  }
+
+  get fit(): LineFit {
+    return this.memo('fit', () => fitLine(this.x, this.y));
+  }
+}
