@@ -1,5 +1,5 @@
 import { powerOfTwoScale } from '../comoments';
-import { fQuantile, studentTSf } from '../distributions';
+import { studentTSf } from '../distributions';
 import { StatsInputError } from '../types';
 
 /** Per-point diagnostics of a straight-line least-squares fit. NaN marks a value that is undefined. */
@@ -119,9 +119,12 @@ export function bonferroniOutlierP(t: number, n: number): number {
 
 /**
  * The usual yardstick for a large Cook's distance: the median of F(2, n - 2) (Cook 1977 compares D_i with the
- * percentiles of F(p, n - p); the 50% point is the common cut-off). About 0.69 for large n.
+ * percentiles of F(p, n - p); the 50% point is the common cut-off). About 0.69 (ln 2) for large n.
+ * In closed form: F(2, m) has P(F <= f) = 1 - (1 + 2f/m)^(-m/2), so its median is (m/2)(2^(2/m) - 1), computed
+ * with expm1 so that large m keeps its digits.
  */
 export function cookCutoff(n: number): number {
   if (!(n >= 3)) throw new StatsInputError('too-few', "Cook's distance needs at least 3 points");
-  return fQuantile(0.5, 2, n - 2);
+  const m = n - 2;
+  return (m / 2) * Math.expm1((2 / m) * Math.LN2);
 }

@@ -113,7 +113,9 @@ export function curvatureTest(x: ArrayLike<number>, residuals: ArrayLike<number>
     rssQuadratic += r * r;
   }
   const df2 = n - 3;
-  const statistic = rssQuadratic > 0 ? reduction / (rssQuadratic / df2) : Infinity;
+  // A parabola through every point leaves only rounding (relative 1e-24 and below): F is infinite, not 1e30.
+  const exactParabola = rssQuadratic <= 1e-24 * reduction;
+  const statistic = exactParabola ? Infinity : reduction / (rssQuadratic / df2);
   return {
     n,
     statistic,
