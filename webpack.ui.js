@@ -2,6 +2,7 @@
  * Both carry a strict Content-Security-Policy in their HTML templates. */
 const path = require('path');
 const HtmlWebpackPlugin = require('html-webpack-plugin');
+const CopyWebpackPlugin = require('copy-webpack-plugin');
 
 module.exports = (mode, common) => [
   {
@@ -17,6 +18,8 @@ module.exports = (mode, common) => [
     plugins: [
       new HtmlWebpackPlugin({ filename: 'taskpane.html', template: './taskpane/taskpane.html', chunks: ['taskpane'], inject: 'body', scriptLoading: 'blocking' }),
       new HtmlWebpackPlugin({ filename: 'workbench.html', template: './workbench/workbench.html', chunks: ['workbench'], inject: 'body', scriptLoading: 'blocking' }),
+      // The workbench's stylesheet is a plain file: the page's policy allows styles from this server only.
+      new CopyWebpackPlugin({ patterns: [{ from: 'workbench/workbench.css', to: 'workbench.css' }] }),
     ],
   },
 ];

@@ -1,0 +1,47 @@
+/**
+ * What a workbench cell holds once evaluated: a number, text, TRUE/FALSE, blank (null) or an error such as
+ * #VALUE! with the message the function gave (shown as the cell's tooltip, as Excel does).
+ */
+
+/** An error shown in a cell, e.g. { error: "#VALUE!", message: "y is constant" }. */
+export interface ErrorValue {
+  error: string;
+  message?: string;
+}
+
+export type Scalar = number | string | boolean | null;
+export type CellValue = Scalar | ErrorValue;
+
+export function isErrorValue(v: unknown): v is ErrorValue {
+  return typeof v === 'object' && v !== null && typeof (v as ErrorValue).error === 'string';
+}
+
+export function errorValue(error: string, message?: string): ErrorValue {
+  return message ? { error, message } : { error };
+}
+
+/**
+ * What a typed entry means, as a spreadsheet reads it: "=..." is a formula, numbers become numbers, TRUE/FALSE
+ * become booleans, an empty entry clears the cell, anything else stays text (so "<b>" is text, never markup).
+ */
+export type Entry = { kind: 'formula'; text: string } | { kind: 'value'; value: Scalar };
+
+export function readEntry(typed: string | number | boolean | null): Entry {
+  if (typed === null) return { kind: 'value', value: null };
+  if (typeof typed !== 'string') return { kind: 'value', value: typed };
+  if (typed.startsWith('=') && typed.length > 1) return { kind: 'formula', text: typed };
+  const trimmed = typed.trim();
+  if (trimmed === '') return { kind: 'value', value: null };
+  if (/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(trimmed)) return { kind: 'value', value: Number(trimmed) };
+  const upper = trimmed.toUpperCase();
+  if (upper === 'TRUE' || upper === 'FALSE') return { kind: 'value', value: upper === 'TRUE' };
+  return { kind: 'value', value: typed };
+}
+
+/** Two cell values are the same for recalculation purposes. */
+export function sameValue(a: CellValue, b: CellValue): boolean {
+  if (isErrorValue(a) || isErrorValue(b)) {
+    return isErrorValue(a) && isErrorValue(b) && a.error === b.error && a.message === b.message;
+  }
+  return Object.is(a, b);
+}

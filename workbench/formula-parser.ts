@@ -1,0 +1,218 @@
+/**
+ * A small parser for the formulas the workbench evaluates: function calls such as
+ * `=COVARY.COEF(B2:B49, 'Other sheet'!C2:C49, "spearman")`, with ranges, whole columns, numbers, text in double
+ * quotes, TRUE/FALSE, omitted arguments (`=F(A1:A9, , 0.9)`), array constants (`{1,2;3,4}`) and nested calls.
+ * Operators (+, *, &) are not part of it: the workbench evaluates the add-in's functions, not a spreadsheet's.
+ */
+import { Area, parseArea } from './a1';
+import { Scalar } from './cell-values';
+
+export type FormulaNode =
+  | { kind: 'literal'; value: Scalar }
+  | { kind: 'omitted' }
+  | { kind: 'ref'; text: string; area: Area }
+  | { kind: 'array'; rows: Scalar[][] }
+  | { kind: 'call'; name: string; args: FormulaNode[] };
+
+export class FormulaSyntaxError extends Error {
+  constructor(message: string) {
+    super(message);
+    this.name = 'FormulaSyntaxError';
+  }
+}
+
+/**
+ * Parses a formula (with its leading "="). Ranges without a sheet belong to `homeSheet`.
+ * @throws FormulaSyntaxError with a message a spreadsheet user understands.
+ * @example parseFormula('=COVARY.COEF(B2:B9, C2:C9)', 'North') // → { kind: 'call', name: 'COVARY.COEF', args: [ref, ref] }
+ */
+export function parseFormula(formula: string, homeSheet: string): FormulaNode {
+  const p = new Parser(formula, homeSheet);
+  return p.parseWhole();
+}
+
+/** Every range a formula reads (for recalculation when one of them changes). */
+export function referencedAreas(node: FormulaNode): Area[] {
+  if (node.kind === 'ref') return [node.area];
+  if (node.kind === 'call') return node.args.flatMap(referencedAreas);
+  return [];
+}
+
+class Parser {
+  private pos = 0;
+  constructor(private readonly text: string, private readonly homeSheet: string) {}
+
+  parseWhole(): FormulaNode {
+    if (!this.text.startsWith('=')) throw new FormulaSyntaxError('a formula starts with "="');
+    this.pos = 1;
+    const node = this.parseExpression(false);
+    this.skipSpace();
+    if (this.pos < this.text.length) this.fail(`unexpected "${this.text.slice(this.pos, this.pos + 10)}"`);
+    return node;
+  }
+
+  private fail(message: string): never {
+    throw new FormulaSyntaxError(`${message} (at character ${this.pos + 1})`);
+  }
+
+  private skipSpace(): void {
+    while (this.pos < this.text.length && /\s/.test(this.text[this.pos])) this.pos++;
+  }
+
+  private peek(): string {
+    return this.text[this.pos] ?? '';
+  }
+
+  private parseExpression(inArguments: boolean): FormulaNode {
+    this.skipSpace();
+    const c = this.peek();
+    if (inArguments && (c === ',' || c === ')')) return { kind: 'omitted' };
+    if (c === '') this.fail('the formula ends too early');
+    if (c === '"') return { kind: 'literal', value: this.readString() };
+    if (c === '{') return this.readArray();
+    if (c === "'") return this.readReference(this.readQuotedSheet());
+    if (/[0-9.+-]/.test(c)) return { kind: 'literal', value: this.readNumber() };
+    if (/[A-Za-z_$]/.test(c)) {
+      const start = this.pos;
+      const word = this.readWord();
+      this.skipSpace();
+      const next = this.peek();
+      if (next === '(') return this.readCall(word);
+      if (next === '!') return this.readReference(word);
+      const upper = word.toUpperCase();
+      if ((upper === 'TRUE' || upper === 'FALSE') && next !== ':') return { kind: 'literal', value: upper === 'TRUE' };
+      this.pos = start;
+      return this.readReference(undefined);
+    }
+    return this.fail(`unexpected "${c}"`);
+  }
+
+  private readWord(): string {
+    const m = /^[A-Za-z_$][A-Za-z0-9_.$]*/.exec(this.text.slice(this.pos));
+    if (!m) this.fail('expected a name');
+    this.pos += m[0].length;
+    return m[0];
+  }
+
+  private readString(): string {
+    this.pos++; // opening quote
+    let out = '';
+    while (this.pos < this.text.length) {
+      const c = this.text[this.pos];
+      if (c === '"') {
+        if (this.text[this.pos + 1] === '"') {
+          out += '"';
+          this.pos += 2;
+          continue;
+        }
+        this.pos++;
+        return out;
+      }
+      out += c;
+      this.pos++;
+    }
+    return this.fail('text is missing its closing "');
+  }
+
+  private readNumber(): number {
+    const m = /^[+-]?\s*(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?%?/.exec(this.text.slice(this.pos));
+    if (!m) return this.fail('expected a number');
+    this.pos += m[0].length;
+    const body = m[0].replace(/\s+/g, '');
+    return body.endsWith('%') ? Number(body.slice(0, -1)) / 100 : Number(body);
+  }
+
+  private readQuotedSheet(): string {
+    this.pos++; // opening '
+    let name = '';
+    while (this.pos < this.text.length) {
+      const c = this.text[this.pos];
+      if (c === "'") {
+        if (this.text[this.pos + 1] === "'") {
+          name += "'";
+          this.pos += 2;
+          continue;
+        }
+        this.pos++;
+        this.skipSpace();
+        if (this.peek() !== '!') this.fail('a quoted sheet name must be followed by "!"');
+        return name;
+      }
+      name += c;
+      this.pos++;
+    }
+    return this.fail("a sheet name is missing its closing '");
+  }
+
+  /** Reads "B2", "B2:C9" or "B:C" after an optional sheet name (the "!" is still ahead when a sheet was read). */
+  private readReference(sheet: string | undefined): FormulaNode {
+    if (sheet !== undefined) {
+      this.skipSpace();
+      if (this.peek() !== '!') this.fail('expected "!" after the sheet name');
+      this.pos++;
+    }
+    const m = /^\$?[A-Za-z]{1,3}\$?\d*(\s*:\s*\$?[A-Za-z]{1,3}\$?\d*)?/.exec(this.text.slice(this.pos));
+    if (!m) return this.fail('expected a cell or range such as B2:B49');
+    const cells = m[0].replace(/\s+/g, '');
+    const area = parseArea(cells, sheet ?? this.homeSheet);
+    if (!area) return this.fail(`"${cells}" is not a cell or range`);
+    if (sheet !== undefined) area.sheet = sheet;
+    this.pos += m[0].length;
+    return { kind: 'ref', text: cells, area };
+  }
+
+  private readCall(name: string): FormulaNode {
+    this.pos++; // (
+    const args: FormulaNode[] = [];
+    this.skipSpace();
+    if (this.peek() === ')') {
+      this.pos++;
+      return { kind: 'call', name, args };
+    }
+    for (;;) {
+      args.push(this.parseExpression(true));
+      this.skipSpace();
+      const c = this.peek();
+      if (c === ',') {
+        this.pos++;
+        continue;
+      }
+      if (c === ')') {
+        this.pos++;
+        return { kind: 'call', name, args };
+      }
+      this.fail(c === '' ? `${name}( is missing its closing ")"` : `expected "," or ")" but found "${c}"`);
+    }
+  }
+
+  private readArray(): FormulaNode {
+    this.pos++; // {
+    const rows: Scalar[][] = [[]];
+    for (;;) {
+      this.skipSpace();
+      const c = this.peek();
+      let value: Scalar;
+      if (c === '"') value = this.readString();
+      else if (/[0-9.+-]/.test(c)) value = this.readNumber();
+      else if (/[A-Za-z]/.test(c)) {
+        const w = this.readWord().toUpperCase();
+        if (w !== 'TRUE' && w !== 'FALSE') this.fail('an array constant holds only numbers, text and TRUE/FALSE');
+        value = w === 'TRUE';
+      } else return this.fail('expected a value inside { }');
+      rows[rows.length - 1].push(value);
+      this.skipSpace();
+      const sep = this.peek();
+      this.pos++;
+      if (sep === ',') continue;
+      if (sep === ';') {
+        rows.push([]);
+        continue;
+      }
+      if (sep === '}') break;
+      this.pos--;
+      this.fail('expected ",", ";" or "}" in the array constant');
+    }
+    if (rows.some((r) => r.length !== rows[0].length)) this.fail('every row of an array constant needs the same number of values');
+    return { kind: 'array', rows };
+  }
+}

@@ -1,0 +1,571 @@
+/**
+ * The editable grid: a plain DOM table of the active sheet with column letters and row numbers, a name box and a
+ * formula bar above it, and sheet tabs below. Click selects a cell, shift-click or drag selects a range, a column or
+ * row header selects that column or row; typing, F2 or a double-click edits; Enter, Tab and the arrows move;
+ * Delete clears. Every cell's text is set with textContent: what a cell holds is data, never markup.
+ */
+import { Area, cellName, columnLetters, formatArea, intersects, parseArea } from './a1';
+import { displayValue } from './cell-format';
+import type { WorkbookEditor } from './workbook-editor';
+import type { WorkbookModel } from './workbook-model';
+
+interface CellPos {
+  row: number;
+  column: number;
+}
+
+/** Extra empty rows and columns drawn past the used range, so there is room to type. */
+const SPARE_ROWS = 12;
+const SPARE_COLUMNS = 3;
+const MIN_ROWS = 40;
+const MIN_COLUMNS = 12;
+/** Rows drawn at most; a bigger sheet keeps its data but draws only the first rows. */
+const MAX_DRAWN_ROWS = 5000;
+/** Column widths in pixels: the row-number column, and the range a fitted column stays within. */
+const ROW_HEAD_WIDTH = 44;
+const MIN_COLUMN_WIDTH = 64;
+const MAX_COLUMN_WIDTH = 260;
+/** Average width of a character of the grid's 13px font, for fitting columns to their text. */
+const CHAR_WIDTH = 7.1;
+/** Rows looked at when fitting a column's width. */
+const FIT_SCAN_ROWS = 200;
+
+function el<K extends keyof HTMLElementTagNameMap>(tag: K, className?: string, text?: string): HTMLElementTagNameMap[K] {
+  const e = document.createElement(tag);
+  if (className) e.className = className;
+  if (text !== undefined) e.textContent = text;
+  return e;
+}
+
+export class GridView {
+  private sheetName: string;
+  private anchor: CellPos = { row: 1, column: 1 };
+  private focus: CellPos = { row: 1, column: 1 };
+  private drawnRows = 0;
+  private drawnColumns = 0;
+  private tableSignature = '';
+  private cells = new Map<string, HTMLTableCellElement>();
+  private rowHeads: HTMLTableCellElement[] = [];
+  private columnHeads: HTMLTableCellElement[] = [];
+  private marked: HTMLElement[] = [];
+  private flashed: HTMLElement[] = [];
+  private flashTimer: number | undefined;
+  private dragging = false;
+  private editing: { pos: CellPos; input: HTMLInputElement; original: string } | null = null;
+  private readonly selectionListeners = new Set<() => void>();
+
+  private readonly nameBox: HTMLInputElement;
+  private readonly formulaBar: HTMLInputElement;
+  private readonly scroller: HTMLDivElement;
+  private readonly table: HTMLTableElement;
+  private readonly tabs: HTMLDivElement;
+  private readonly note: HTMLDivElement;
+
+  constructor(
+    root: HTMLElement,
+    private readonly model: WorkbookModel,
+    private readonly editor: WorkbookEditor,
+  ) {
+    this.sheetName = model.sheets[0]?.name ?? 'Sheet1';
+
+    const bar = el('div', 'wb-bar');
+    this.nameBox = el('input', 'wb-namebox');
+    this.nameBox.setAttribute('aria-label', 'Cell address');
+    this.nameBox.dataset.testid = 'name-box';
+    this.nameBox.spellcheck = false;
+    const fx = el('span', 'wb-fx', 'fx');
+    fx.setAttribute('aria-hidden', 'true');
+    this.formulaBar = el('input', 'wb-formula');
+    this.formulaBar.setAttribute('aria-label', 'Cell contents');
+    this.formulaBar.dataset.testid = 'formula-bar';
+    this.formulaBar.spellcheck = false;
+    bar.append(this.nameBox, fx, this.formulaBar);
+
+    this.scroller = el('div', 'wb-scroller');
+    this.scroller.tabIndex = 0;
+    this.scroller.dataset.testid = 'grid';
+    this.table = el('table', 'wb-grid');
+    this.table.setAttribute('role', 'grid');
+    this.scroller.append(this.table);
+
+    this.note = el('div', 'wb-note');
+    this.tabs = el('div', 'wb-tabs');
+    this.tabs.setAttribute('role', 'tablist');
+    root.append(bar, this.scroller, this.note, this.tabs);
+
+    this.wireEvents();
+    model.onChange((areas) => this.onModelChange(areas));
+    this.render();
+  }
+
+  get activeSheet(): string {
+    return this.sheetName;
+  }
+
+  /** The selected area on the active sheet. */
+  selectionArea(): Area {
+    return {
+      sheet: this.sheetName,
+      top: Math.min(this.anchor.row, this.focus.row),
+      bottom: Math.max(this.anchor.row, this.focus.row),
+      left: Math.min(this.anchor.column, this.focus.column),
+      right: Math.max(this.anchor.column, this.focus.column),
+    };
+  }
+
+  onSelectionChange(listener: () => void): () => void {
+    this.selectionListeners.add(listener);
+    return () => this.selectionListeners.delete(listener);
+  }
+
+  /** Shows a sheet (its tab becomes active). */
+  showSheet(name: string): void {
+    const s = this.model.sheet(name);
+    if (!s || s.name === this.sheetName) return;
+    this.commitEdit();
+    this.sheetName = s.name;
+    this.anchor = { row: 1, column: 1 };
+    this.focus = { row: 1, column: 1 };
+    this.render();
+    this.scroller.scrollTop = 0;
+    this.scroller.scrollLeft = 0;
+    this.selectionChanged();
+  }
+
+  /** Selects an area (switching sheet if needed) and scrolls it into view. */
+  select(area: Area, options: { flash?: boolean } = {}): void {
+    this.showSheet(area.sheet);
+    this.anchor = { row: area.top, column: area.left };
+    this.focus = { row: area.bottom === Infinity ? this.lastUsedRow() : area.bottom, column: area.right };
+    this.ensureDrawn(this.focus);
+    this.paintSelection();
+    const target = this.cells.get(`${area.top}:${area.left}`);
+    target?.scrollIntoView({ block: 'center', inline: 'nearest' });
+    if (options.flash) this.flash(area);
+    this.selectionChanged();
+  }
+
+  /** Selects a whole row of the sheet (across its used columns) and brings it into view. */
+  selectRow(sheet: string, row: number): void {
+    const s = this.model.sheet(sheet);
+    if (!s) throw new Error(`no sheet named ${sheet}`);
+    const columns = Math.max(1, this.model.usedExtent(s.name).columns);
+    this.select({ sheet: s.name, top: row, bottom: row, left: 1, right: columns }, { flash: true });
+    this.rowHeads[row - 1]?.scrollIntoView({ block: 'center', inline: 'nearest' });
+    this.scroller.scrollLeft = 0;
+  }
+
+  // ---- drawing -------------------------------------------------------------------------------------------
+
+  private lastUsedRow(): number {
+    return Math.max(1, this.model.usedExtent(this.sheetName).rows);
+  }
+
+  private tablesOnSheet() {
+    return this.model.tables.filter((t) => t.sheet.toLowerCase() === this.sheetName.toLowerCase());
+  }
+
+  private currentTableSignature(): string {
+    return this.tablesOnSheet()
+      .map((t) => `${t.name}:${t.top}:${t.left}:${t.bottom}:${t.right}`)
+      .join('|');
+  }
+
+  /** Draws the whole active sheet (on load, on a sheet switch, and when the sheet outgrows what was drawn). */
+  render(): void {
+    this.editing = null;
+    const used = this.model.usedExtent(this.sheetName);
+    this.drawnRows = Math.min(MAX_DRAWN_ROWS, Math.max(MIN_ROWS, used.rows + SPARE_ROWS, this.focus.row + 1));
+    this.drawnColumns = Math.max(MIN_COLUMNS, used.columns + SPARE_COLUMNS, this.focus.column + 1);
+    this.tableSignature = this.currentTableSignature();
+    this.cells = new Map();
+    this.marked = [];
+    this.flashed = [];
+
+    const colgroup = el('colgroup');
+    const corner = el('col', 'wb-col-rowhead');
+    corner.style.width = `${ROW_HEAD_WIDTH}px`;
+    colgroup.append(corner);
+    let tableWidth = ROW_HEAD_WIDTH;
+    for (let c = 1; c <= this.drawnColumns; c++) {
+      const col = el('col');
+      const width = this.fitWidth(c, used.rows);
+      col.style.width = `${width}px`;
+      tableWidth += width;
+      colgroup.append(col);
+    }
+    // A fixed layout needs the table's width: long text is then cut with an ellipsis (the full text is in the
+    // formula bar), as in a spreadsheet.
+    this.table.style.width = `${tableWidth}px`;
+
+    const thead = el('thead');
+    const headRow = el('tr');
+    const cornerCell = el('th', 'wb-corner');
+    headRow.append(cornerCell);
+    this.columnHeads = [];
+    for (let c = 1; c <= this.drawnColumns; c++) {
+      const th = el('th', 'wb-colhead', columnLetters(c));
+      th.dataset.column = String(c);
+      th.scope = 'col';
+      headRow.append(th);
+      this.columnHeads.push(th);
+    }
+    thead.append(headRow);
+
+    const tables = this.tablesOnSheet();
+    const tbody = el('tbody');
+    this.rowHeads = [];
+    for (let r = 1; r <= this.drawnRows; r++) {
+      const tr = el('tr');
+      const rh = el('th', 'wb-rowhead', String(r));
+      rh.dataset.row = String(r);
+      rh.scope = 'row';
+      tr.append(rh);
+      this.rowHeads.push(rh);
+      for (let c = 1; c <= this.drawnColumns; c++) {
+        const td = el('td');
+        td.dataset.row = String(r);
+        td.dataset.column = String(c);
+        td.dataset.address = cellName(r, c);
+        const t = tables.find((tb) => r >= tb.top && r <= tb.bottom && c >= tb.left && c <= tb.right);
+        td.className = t ? (r === t.top ? 'tbl-head' : (r - t.top) % 2 === 0 ? 'tbl tbl-band' : 'tbl') : '';
+        this.fillCell(td, r, c);
+        tr.append(td);
+        this.cells.set(`${r}:${c}`, td);
+      }
+      tbody.append(tr);
+    }
+    this.table.replaceChildren(colgroup, thead, tbody);
+    this.note.textContent =
+      used.rows > MAX_DRAWN_ROWS ? `This sheet has ${used.rows.toLocaleString('en-US')} rows; the first ${MAX_DRAWN_ROWS.toLocaleString('en-US')} are drawn. Formulas and the panel use them all.` : '';
+    this.note.hidden = this.note.textContent === '';
+    this.renderTabs();
+    this.paintSelection();
+  }
+
+  /** A column wide enough for its longest text among the first rows (like a spreadsheet's autofit), within limits. */
+  private fitWidth(column: number, usedRows: number): number {
+    let longest = 0;
+    const last = Math.min(usedRows, FIT_SCAN_ROWS);
+    for (let r = 1; r <= last; r++) {
+      const text = displayValue(this.model.value(this.sheetName, r, column)).text;
+      if (text.length > longest) longest = text.length;
+    }
+    return Math.round(Math.min(MAX_COLUMN_WIDTH, Math.max(MIN_COLUMN_WIDTH, longest * CHAR_WIDTH + 16)));
+  }
+
+  private renderTabs(): void {
+    const buttons = this.model.sheets.map((s) => {
+      const b = el('button', s.name === this.sheetName ? 'wb-tab active' : 'wb-tab', s.name);
+      b.type = 'button';
+      b.setAttribute('role', 'tab');
+      b.setAttribute('aria-selected', String(s.name === this.sheetName));
+      b.dataset.sheet = s.name;
+      b.addEventListener('click', () => this.showSheet(s.name));
+      return b;
+    });
+    this.tabs.replaceChildren(...buttons);
+  }
+
+  private fillCell(td: HTMLTableCellElement, row: number, column: number): void {
+    const shown = displayValue(this.model.value(this.sheetName, row, column));
+    td.textContent = shown.text;
+    td.dataset.kind = shown.kind;
+    if (shown.title) td.title = shown.title;
+    else td.removeAttribute('title');
+  }
+
+  private onModelChange(areas: Area[]): void {
+    if (this.model.sheets.length !== this.tabs.childElementCount) this.renderTabs();
+    const here = areas.filter((a) => a.sheet.toLowerCase() === this.sheetName.toLowerCase());
+    if (here.length === 0) return;
+    const used = this.model.usedExtent(this.sheetName);
+    const outgrown = used.rows + 1 > this.drawnRows && this.drawnRows < MAX_DRAWN_ROWS;
+    if (outgrown || used.columns + 1 > this.drawnColumns || this.currentTableSignature() !== this.tableSignature) {
+      const keepTop = this.scroller.scrollTop;
+      const keepLeft = this.scroller.scrollLeft;
+      this.render();
+      this.scroller.scrollTop = keepTop;
+      this.scroller.scrollLeft = keepLeft;
+      this.refreshFormulaBar();
+      return;
+    }
+    for (const a of here) {
+      const bottom = Math.min(a.bottom, this.drawnRows);
+      const right = Math.min(a.right, this.drawnColumns);
+      for (let r = a.top; r <= bottom; r++) {
+        for (let c = a.left; c <= right; c++) {
+          const td = this.cells.get(`${r}:${c}`);
+          if (td && !(this.editing && this.editing.pos.row === r && this.editing.pos.column === c)) this.fillCell(td, r, c);
+        }
+      }
+    }
+    this.refreshFormulaBar();
+  }
+
+  private ensureDrawn(pos: CellPos): void {
+    if (pos.row > this.drawnRows || pos.column > this.drawnColumns) this.render();
+  }
+
+  // ---- selection -----------------------------------------------------------------------------------------
+
+  private paintSelection(): void {
+    for (const e of this.marked) e.classList.remove('sel', 'active', 'sel-head');
+    this.marked = [];
+    const a = this.selectionArea();
+    const bottom = Math.min(a.bottom, this.drawnRows);
+    const right = Math.min(a.right, this.drawnColumns);
+    for (let r = a.top; r <= bottom; r++) {
+      for (let c = a.left; c <= right; c++) {
+        const td = this.cells.get(`${r}:${c}`);
+        if (td) {
+          td.classList.add('sel');
+          this.marked.push(td);
+        }
+      }
+      const rh = this.rowHeads[r - 1];
+      if (rh) {
+        rh.classList.add('sel-head');
+        this.marked.push(rh);
+      }
+    }
+    for (let c = a.left; c <= right; c++) {
+      const ch = this.columnHeads[c - 1];
+      if (ch) {
+        ch.classList.add('sel-head');
+        this.marked.push(ch);
+      }
+    }
+    const active = this.cells.get(`${this.anchor.row}:${this.anchor.column}`);
+    if (active) {
+      active.classList.add('active');
+      this.marked.push(active);
+    }
+    this.nameBox.value = formatArea(a, false);
+    this.refreshFormulaBar();
+  }
+
+  private refreshFormulaBar(): void {
+    if (document.activeElement === this.formulaBar) return;
+    this.formulaBar.value = this.model.entryText(this.sheetName, this.anchor.row, this.anchor.column);
+  }
+
+  private flash(area: Area): void {
+    for (const e of this.flashed) e.classList.remove('flash');
+    this.flashed = [];
+    if (this.flashTimer !== undefined) window.clearTimeout(this.flashTimer);
+    for (let r = area.top; r <= Math.min(area.bottom, this.drawnRows); r++) {
+      const rh = this.rowHeads[r - 1];
+      if (rh) this.flashed.push(rh);
+      for (let c = area.left; c <= Math.min(area.right, this.drawnColumns); c++) {
+        const td = this.cells.get(`${r}:${c}`);
+        if (td) this.flashed.push(td);
+      }
+    }
+    for (const e of this.flashed) e.classList.add('flash');
+    this.flashTimer = window.setTimeout(() => {
+      for (const e of this.flashed) e.classList.remove('flash');
+      this.flashed = [];
+    }, 2500);
+  }
+
+  private selectionChanged(): void {
+    for (const l of [...this.selectionListeners]) l();
+  }
+
+  private setSelection(anchor: CellPos, focus: CellPos): void {
+    this.anchor = anchor;
+    this.focus = focus;
+    this.paintSelection();
+    this.selectionChanged();
+  }
+
+  private moveBy(dRow: number, dColumn: number, extend: boolean): void {
+    const from = extend ? this.focus : this.anchor;
+    const next = { row: Math.max(1, from.row + dRow), column: Math.max(1, from.column + dColumn) };
+    this.ensureDrawn(next);
+    if (extend) this.setSelection(this.anchor, next);
+    else this.setSelection(next, next);
+    this.cells.get(`${next.row}:${next.column}`)?.scrollIntoView({ block: 'nearest', inline: 'nearest' });
+  }
+
+  // ---- editing -------------------------------------------------------------------------------------------
+
+  private beginEdit(pos: CellPos, initial?: string): void {
+    this.commitEdit();
+    const td = this.cells.get(`${pos.row}:${pos.column}`);
+    if (!td) return;
+    const original = this.model.entryText(this.sheetName, pos.row, pos.column);
+    const input = el('input', 'wb-cell-editor');
+    input.value = initial ?? original;
+    input.spellcheck = false;
+    input.setAttribute('aria-label', `Edit ${cellName(pos.row, pos.column)}`);
+    td.replaceChildren(input);
+    this.editing = { pos, input, original };
+    input.focus();
+    input.setSelectionRange(input.value.length, input.value.length);
+    input.addEventListener('keydown', (e) => {
+      if (e.key === 'Enter' || e.key === 'Tab') {
+        e.preventDefault();
+        this.commitEdit();
+        this.moveBy(e.key === 'Enter' ? (e.shiftKey ? -1 : 1) : 0, e.key === 'Tab' ? (e.shiftKey ? -1 : 1) : 0, false);
+        this.scroller.focus({ preventScroll: true });
+      } else if (e.key === 'Escape') {
+        e.preventDefault();
+        this.cancelEdit();
+      }
+      e.stopPropagation();
+    });
+    input.addEventListener('input', () => {
+      this.formulaBar.value = input.value;
+    });
+    input.addEventListener('blur', () => this.commitEdit());
+  }
+
+  private cancelEdit(): void {
+    const ed = this.editing;
+    if (!ed) return;
+    this.editing = null;
+    const td = this.cells.get(`${ed.pos.row}:${ed.pos.column}`);
+    if (td) this.fillCell(td, ed.pos.row, ed.pos.column);
+    this.refreshFormulaBar();
+    this.scroller.focus({ preventScroll: true });
+  }
+
+  private commitEdit(): void {
+    const ed = this.editing;
+    if (!ed) return;
+    this.editing = null;
+    const typed = ed.input.value;
+    const td = this.cells.get(`${ed.pos.row}:${ed.pos.column}`);
+    if (typed === ed.original) {
+      if (td) this.fillCell(td, ed.pos.row, ed.pos.column);
+      return;
+    }
+    void this.editor.write(this.sheetName, ed.pos.row, ed.pos.column, [[typed]]);
+    if (td && td.isConnected) this.fillCell(td, ed.pos.row, ed.pos.column);
+  }
+
+  private clearSelection(): void {
+    const a = this.selectionArea();
+    const rows: null[][] = [];
+    for (let r = a.top; r <= a.bottom; r++) rows.push(new Array<null>(a.right - a.left + 1).fill(null));
+    void this.editor.write(this.sheetName, a.top, a.left, rows);
+  }
+
+  // ---- events --------------------------------------------------------------------------------------------
+
+  private posOf(target: EventTarget | null): CellPos | null {
+    const td = (target as HTMLElement | null)?.closest?.('td');
+    if (!td || !td.dataset.row) return null;
+    return { row: Number(td.dataset.row), column: Number(td.dataset.column) };
+  }
+
+  private wireEvents(): void {
+    this.table.addEventListener('mousedown', (e) => {
+      if (e.button !== 0) return;
+      const target = e.target as HTMLElement;
+      if (target.classList.contains('wb-cell-editor')) return;
+      const head = target.closest('th');
+      const used = this.model.usedExtent(this.sheetName);
+      if (head?.dataset.column) {
+        e.preventDefault();
+        this.commitEdit();
+        const c = Number(head.dataset.column);
+        const lastRow = Math.max(1, used.rows);
+        if (e.shiftKey) this.setSelection({ row: 1, column: this.anchor.column }, { row: lastRow, column: c });
+        else this.setSelection({ row: 1, column: c }, { row: lastRow, column: c });
+        this.scroller.focus({ preventScroll: true });
+        return;
+      }
+      if (head?.dataset.row) {
+        e.preventDefault();
+        this.commitEdit();
+        const r = Number(head.dataset.row);
+        const lastColumn = Math.max(1, used.columns);
+        if (e.shiftKey) this.setSelection({ row: this.anchor.row, column: 1 }, { row: r, column: lastColumn });
+        else this.setSelection({ row: r, column: 1 }, { row: r, column: lastColumn });
+        this.scroller.focus({ preventScroll: true });
+        return;
+      }
+      const pos = this.posOf(e.target);
+      if (!pos) return;
+      e.preventDefault();
+      this.commitEdit();
+      if (e.shiftKey) this.setSelection(this.anchor, pos);
+      else this.setSelection(pos, pos);
+      this.dragging = true;
+      this.scroller.focus({ preventScroll: true });
+    });
+    this.table.addEventListener('mouseover', (e) => {
+      if (!this.dragging) return;
+      const pos = this.posOf(e.target);
+      if (pos && (pos.row !== this.focus.row || pos.column !== this.focus.column)) this.setSelection(this.anchor, pos);
+    });
+    document.addEventListener('mouseup', () => {
+      this.dragging = false;
+    });
+    this.table.addEventListener('dblclick', (e) => {
+      const pos = this.posOf(e.target);
+      if (pos) this.beginEdit(pos);
+    });
+
+    this.scroller.addEventListener('keydown', (e) => {
+      if (this.editing) return;
+      const moves: Record<string, [number, number]> = { ArrowUp: [-1, 0], ArrowDown: [1, 0], ArrowLeft: [0, -1], ArrowRight: [0, 1] };
+      if (moves[e.key]) {
+        e.preventDefault();
+        this.moveBy(moves[e.key][0], moves[e.key][1], e.shiftKey);
+      } else if (e.key === 'Enter') {
+        e.preventDefault();
+        this.moveBy(e.shiftKey ? -1 : 1, 0, false);
+      } else if (e.key === 'Tab') {
+        e.preventDefault();
+        this.moveBy(0, e.shiftKey ? -1 : 1, false);
+      } else if (e.key === 'F2') {
+        e.preventDefault();
+        this.beginEdit(this.anchor);
+      } else if (e.key === 'Delete' || e.key === 'Backspace') {
+        e.preventDefault();
+        this.clearSelection();
+      } else if (e.key.length === 1 && !e.ctrlKey && !e.metaKey && !e.altKey) {
+        e.preventDefault();
+        this.setSelection(this.anchor, this.anchor);
+        this.beginEdit(this.anchor, e.key);
+      }
+    });
+
+    this.formulaBar.addEventListener('keydown', (e) => {
+      if (e.key === 'Enter') {
+        e.preventDefault();
+        const text = this.formulaBar.value;
+        const pos = this.anchor;
+        if (text !== this.model.entryText(this.sheetName, pos.row, pos.column)) void this.editor.write(this.sheetName, pos.row, pos.column, [[text]]);
+        this.scroller.focus({ preventScroll: true });
+        this.moveBy(1, 0, false);
+      } else if (e.key === 'Escape') {
+        e.preventDefault();
+        this.scroller.focus({ preventScroll: true });
+        this.refreshFormulaBar();
+      }
+    });
+    this.formulaBar.addEventListener('blur', () => this.refreshFormulaBar());
+
+    this.nameBox.addEventListener('keydown', (e) => {
+      if (e.key !== 'Enter') return;
+      e.preventDefault();
+      const area = parseArea(this.nameBox.value, this.sheetName);
+      if (area && this.model.sheet(area.sheet)) {
+        this.select(area);
+        this.scroller.focus({ preventScroll: true });
+      } else {
+        this.nameBox.value = formatArea(this.selectionArea(), false);
+      }
+    });
+  }
+
+  /** True when the area is (partly) on the active sheet: for callers deciding whether to redraw. */
+  shows(area: Area): boolean {
+    return intersects(area, { sheet: this.sheetName, top: 1, left: 1, bottom: this.drawnRows, right: this.drawnColumns });
+  }
+}

@@ -1,0 +1,127 @@
+/**
+ * The workbench's implementation of the panel's workbook interface (taskpane/workbook.ts), over the grid. It
+ * answers as Excel's adapter does: addresses with their sheet ("North!B2:B49", quoted when needed), blanks read
+ * as "", error cells read as their code ("#VALUE!"), table columns that follow the table as it grows.
+ */
+import type { ColumnSource, RangeRead, TableInfo, Workbook } from '../taskpane/workbook';
+import { Area, formatArea, intersects, parseArea } from './a1';
+import { CellValue, isErrorValue } from './cell-values';
+import { displayValue } from './cell-format';
+import type { GridView } from './grid-view';
+import type { TypedCell, WorkbookEditor } from './workbook-editor';
+import type { TableBlock, WorkbookModel } from './workbook-model';
+
+/** A cell as Excel's range.values gives it: blanks are "", errors their code. */
+function hostValue(v: CellValue): unknown {
+  if (v === null) return '';
+  if (isErrorValue(v)) return v.error;
+  return v;
+}
+
+export class GridWorkbook implements Workbook {
+  constructor(
+    private readonly model: WorkbookModel,
+    private readonly editor: WorkbookEditor,
+    private readonly view: GridView,
+  ) {}
+
+  async getSelection(): Promise<string> {
+    return formatArea(this.view.selectionArea());
+  }
+
+  async listTables(): Promise<TableInfo[]> {
+    return this.model.tables.map((t) => ({ name: t.name, sheet: t.sheet, columns: this.headers(t) }));
+  }
+
+  async readColumn(source: ColumnSource): Promise<RangeRead & { header: string }> {
+    if (source.kind === 'table') {
+      const { table, area } = this.tableColumn(source.table, source.column);
+      const header = this.headers(table)[area.left - table.left];
+      return { ...this.read(area), header };
+    }
+    // As Excel's adapter answers: the values include the first cell, which is the header when it is text.
+    const read = this.read(this.parse(source.address));
+    const first = read.values[0]?.[0];
+    const header = typeof first === 'string' && first.trim() !== '' ? first : read.address;
+    return { ...read, header };
+  }
+
+  async readRange(address: string): Promise<RangeRead> {
+    return this.read(this.parse(address));
+  }
+
+  async watch(sources: ColumnSource[], onChange: () => void): Promise<() => void> {
+    return this.model.onChange((changed) => {
+      const watched = sources.map((s) => this.sourceArea(s)).filter((a): a is Area => a !== null);
+      if (changed.some((c) => watched.some((w) => intersects(c, w)))) onChange();
+    });
+  }
+
+  async selectRow(sheet: string, row: number): Promise<void> {
+    this.view.selectRow(sheet, row);
+  }
+
+  async writeCells(topLeft: string, cells: (string | number)[][]): Promise<void> {
+    const area = this.parse(topLeft);
+    await this.editor.write(area.sheet, area.top, area.left, cells as TypedCell[][]);
+  }
+
+  async addSheet(name: string, cells: (string | number)[][]): Promise<string> {
+    const sheet = this.model.addSheet(name);
+    await this.editor.write(sheet.name, 1, 1, cells as TypedCell[][]);
+    this.view.showSheet(sheet.name);
+    return sheet.name;
+  }
+
+  // ---- helpers -------------------------------------------------------------------------------------------
+
+  private parse(address: string): Area {
+    const area = parseArea(address, this.view.activeSheet);
+    if (!area) throw new Error(`"${address}" is not a cell or range address`);
+    const sheet = this.model.sheet(area.sheet);
+    if (!sheet) throw new Error(`there is no sheet named ${area.sheet}`);
+    area.sheet = sheet.name;
+    if (area.bottom === Infinity) area.bottom = Math.max(1, this.model.usedExtent(sheet.name).rows);
+    return area;
+  }
+
+  private read(area: Area): RangeRead {
+    const rows = this.model.readArea(area);
+    const values = isErrorValue(rows) ? [] : rows.map((r) => r.map(hostValue));
+    return { address: formatArea(area), sheet: area.sheet, firstRow: area.top, firstColumn: area.left, values };
+  }
+
+  /** Header texts of a table, as shown (a blank header reads "Column" + its position, as Excel names it). */
+  private headers(t: TableBlock): string[] {
+    const out: string[] = [];
+    for (let c = t.left; c <= t.right; c++) {
+      const text = displayValue(this.model.value(t.sheet, t.top, c)).text;
+      out.push(text === '' ? `Column${c - t.left + 1}` : text);
+    }
+    return out;
+  }
+
+  private tableColumn(tableName: string, column: string): { table: TableBlock; area: Area } {
+    const table = this.model.table(tableName);
+    if (!table) throw new Error(`there is no table named ${tableName}`);
+    const headers = this.headers(table);
+    let index = headers.indexOf(column);
+    if (index < 0) index = headers.findIndex((h) => h.toLowerCase() === column.toLowerCase());
+    if (index < 0) throw new Error(`table ${tableName} has no column "${column}"`);
+    const c = table.left + index;
+    return { table, area: { sheet: table.sheet, top: table.top + 1, bottom: Math.max(table.top + 1, table.bottom), left: c, right: c } };
+  }
+
+  private sourceArea(s: ColumnSource): Area | null {
+    try {
+      if (s.kind === 'table') {
+        const { table, area } = this.tableColumn(s.table, s.column);
+        // The header cell counts too: renaming a column changes what the panel shows.
+        return { ...area, top: table.top };
+      }
+      return this.parse(s.address);
+    } catch {
+      return null;
+    }
+  }
+}

@@ -1,0 +1,267 @@
+/**
+ * The workbench's workbook: sheets of typed entries (values and formulas), the results formulas produced, how those
+ * results spill across cells (or show #SPILL! when something is in the way), and named tables with a header row
+ * that grow when a row is typed just below them, as Excel tables do. Listeners hear which areas changed.
+ */
+import { Area, intersects } from './a1';
+import { CellValue, errorValue, readEntry, sameValue, Scalar } from './cell-values';
+import type { CellSource, FormulaResult } from './formula-evaluator';
+import { FormulaNode, FormulaSyntaxError, parseFormula, referencedAreas } from './formula-parser';
+
+/** A formula typed into a cell, its parse, what it reads, and its latest result (undefined while calculating). */
+export interface FormulaCell {
+  sheet: string;
+  row: number;
+  column: number;
+  text: string;
+  node?: FormulaNode;
+  syntaxError?: string;
+  reads: Area[];
+  result?: FormulaResult;
+}
+
+/** A named block with a header row (row `top`) and data rows below it down to `bottom`. */
+export interface TableBlock {
+  name: string;
+  sheet: string;
+  top: number;
+  left: number;
+  right: number;
+  bottom: number;
+}
+
+export class SheetData {
+  readonly values = new Map<string, Scalar>();
+  readonly formulas = new Map<string, FormulaCell>();
+  /** Cells covered by a spilled result → key of the formula cell it comes from. */
+  spilled = new Map<string, string>();
+  /** Formula cells whose result could not spill. */
+  blocked = new Set<string>();
+  constructor(public name: string) {}
+}
+
+export const cellKey = (row: number, column: number): string => `${row}:${column}`;
+function splitKey(key: string): [number, number] {
+  const i = key.indexOf(':');
+  return [Number(key.slice(0, i)), Number(key.slice(i + 1))];
+}
+
+export type ChangeListener = (areas: Area[]) => void;
+
+export class WorkbookModel implements CellSource {
+  readonly sheets: SheetData[] = [];
+  readonly tables: TableBlock[] = [];
+  private readonly listeners = new Set<ChangeListener>();
+
+  onChange(listener: ChangeListener): () => void {
+    this.listeners.add(listener);
+    return () => this.listeners.delete(listener);
+  }
+
+  notify(areas: Area[]): void {
+    if (areas.length === 0) return;
+    for (const l of [...this.listeners]) l(areas);
+  }
+
+  sheet(name: string): SheetData | undefined {
+    const lower = name.toLowerCase();
+    return this.sheets.find((s) => s.name.toLowerCase() === lower);
+  }
+
+  /** Adds a sheet with a unique name derived from `name` ("Report", "Report (2)", …); returns it. */
+  addSheet(name: string): SheetData {
+    const base = (name.replace(/[\\/?*[\]:]/g, ' ').trim() || 'Sheet').slice(0, 31);
+    let candidate = base;
+    for (let i = 2; this.sheet(candidate); i++) candidate = `${base.slice(0, 26)} (${i})`;
+    const s = new SheetData(candidate);
+    this.sheets.push(s);
+    return s;
+  }
+
+  addTable(table: TableBlock): void {
+    this.tables.push(table);
+  }
+
+  table(name: string): TableBlock | undefined {
+    const lower = name.toLowerCase();
+    return this.tables.find((t) => t.name.toLowerCase() === lower);
+  }
+
+  /**
+   * Stores what the user typed (or the panel wrote) into one cell. Returns the formula cell when a formula was
+   * entered (it still needs calculating), and grows a table when the cell is just below it.
+   */
+  setEntry(sheetName: string, row: number, column: number, typed: string | number | boolean | null): FormulaCell | undefined {
+    const s = this.sheet(sheetName);
+    if (!s) throw new Error(`no sheet named ${sheetName}`);
+    const key = cellKey(row, column);
+    const entry = readEntry(typed);
+    s.formulas.delete(key);
+    s.values.delete(key);
+    let formula: FormulaCell | undefined;
+    if (entry.kind === 'formula') {
+      formula = { sheet: s.name, row, column, text: entry.text, reads: [] };
+      try {
+        formula.node = parseFormula(entry.text, s.name);
+        formula.reads = referencedAreas(formula.node);
+      } catch (e) {
+        formula.syntaxError = e instanceof FormulaSyntaxError ? e.message : String(e);
+        formula.result = [[errorValue('#NAME?', `this formula could not be read: ${formula.syntaxError}`)]];
+      }
+      s.formulas.set(key, formula);
+    } else if (entry.value !== null) {
+      s.values.set(key, entry.value);
+    }
+    if (entry.kind === 'formula' || entry.value !== null) this.growTables(s.name, row, column);
+    return formula;
+  }
+
+  private growTables(sheet: string, row: number, column: number): void {
+    for (const t of this.tables) {
+      if (t.sheet.toLowerCase() === sheet.toLowerCase() && row === t.bottom + 1 && column >= t.left && column <= t.right) t.bottom = row;
+    }
+  }
+
+  /** What the user typed into a cell, for the formula bar: the formula text or the plain value. */
+  entryText(sheetName: string, row: number, column: number): string {
+    const s = this.sheet(sheetName);
+    if (!s) return '';
+    const key = cellKey(row, column);
+    const f = s.formulas.get(key);
+    if (f) return f.text;
+    const v = s.values.get(key);
+    if (v === undefined || v === null) return '';
+    if (typeof v === 'boolean') return v ? 'TRUE' : 'FALSE';
+    return String(v);
+  }
+
+  /** The value a cell shows: its own value, its formula's result, or the part of a spilled result over it. */
+  value(sheetName: string, row: number, column: number): CellValue {
+    const s = this.sheet(sheetName);
+    return s ? this.valueIn(s, row, column) : null;
+  }
+
+  private valueIn(s: SheetData, row: number, column: number): CellValue {
+    const key = cellKey(row, column);
+    const f = s.formulas.get(key);
+    if (f) {
+      if (!f.result) return errorValue('#BUSY!', 'calculating');
+      if (s.blocked.has(key)) {
+        return errorValue('#SPILL!', `the result needs ${f.result.length} x ${f.result[0].length} cells, and a cell in that area is not empty`);
+      }
+      return f.result[0][0];
+    }
+    const v = s.values.get(key);
+    if (v !== undefined) return v;
+    const anchor = s.spilled.get(key);
+    if (anchor !== undefined) {
+      const af = s.formulas.get(anchor);
+      const [ar, ac] = splitKey(anchor);
+      const res = af?.result;
+      if (res) return res[row - ar]?.[column - ac] ?? null;
+    }
+    return null;
+  }
+
+  /** Rows and columns in use on a sheet (values, formulas and spilled results). */
+  usedExtent(sheetName: string): { rows: number; columns: number } {
+    const s = this.sheet(sheetName);
+    let rows = 0;
+    let columns = 0;
+    if (!s) return { rows, columns };
+    for (const key of [...s.values.keys(), ...s.formulas.keys(), ...s.spilled.keys()]) {
+      const [r, c] = splitKey(key);
+      if (r > rows) rows = r;
+      if (c > columns) columns = c;
+    }
+    return { rows, columns };
+  }
+
+  readArea(area: Area): CellValue[][] | { error: string; message?: string } {
+    const s = this.sheet(area.sheet);
+    if (!s) return errorValue('#REF!', `there is no sheet named ${area.sheet}`);
+    const bottom = area.bottom === Infinity ? Math.max(area.top, this.usedExtent(s.name).rows) : area.bottom;
+    const out: CellValue[][] = [];
+    for (let r = area.top; r <= bottom; r++) {
+      const row: CellValue[] = [];
+      for (let c = area.left; c <= area.right; c++) row.push(this.valueIn(s, r, c));
+      out.push(row);
+    }
+    return out;
+  }
+
+  /** Every formula in the workbook. */
+  allFormulas(): FormulaCell[] {
+    return this.sheets.flatMap((s) => [...s.formulas.values()]);
+  }
+
+  /** The cells a formula's result currently covers (its own cell when blocked or not yet calculated). */
+  outputArea(f: FormulaCell): Area {
+    const s = this.sheet(f.sheet);
+    const key = cellKey(f.row, f.column);
+    const res = f.result;
+    if (!s || !res || s.blocked.has(key)) return { sheet: f.sheet, top: f.row, left: f.column, bottom: f.row, right: f.column };
+    return { sheet: f.sheet, top: f.row, left: f.column, bottom: f.row + res.length - 1, right: f.column + res[0].length - 1 };
+  }
+
+  /** Stores a formula's new result; returns true when anything it shows changed. */
+  setResult(f: FormulaCell, result: FormulaResult): boolean {
+    const old = f.result;
+    f.result = result;
+    if (!old || old.length !== result.length || old[0].length !== result[0].length) return true;
+    for (let r = 0; r < result.length; r++) for (let c = 0; c < result[r].length; c++) if (!sameValue(old[r][c], result[r][c])) return true;
+    return false;
+  }
+
+  /**
+   * Works out where every formula on a sheet spills, in reading order: a result claims its cells when all of them
+   * are empty (no value, no formula, not claimed by an earlier spill), else it shows #SPILL!.
+   * Returns the areas whose shown values changed because a spill appeared, moved or vanished.
+   */
+  layoutSpills(sheetName: string): Area[] {
+    const s = this.sheet(sheetName);
+    if (!s) return [];
+    const before = new Map(s.spilled);
+    const beforeBlocked = new Set(s.blocked);
+    const spilled = new Map<string, string>();
+    const blocked = new Set<string>();
+    const ordered = [...s.formulas.values()].sort((a, b) => a.row - b.row || a.column - b.column);
+    for (const f of ordered) {
+      const res = f.result;
+      const anchor = cellKey(f.row, f.column);
+      if (!res || (res.length === 1 && res[0].length === 1)) continue;
+      const cells: string[] = [];
+      let free = true;
+      for (let r = 0; r < res.length && free; r++) {
+        for (let c = 0; c < res[0].length; c++) {
+          if (r === 0 && c === 0) continue;
+          const k = cellKey(f.row + r, f.column + c);
+          if (s.values.has(k) || s.formulas.has(k) || spilled.has(k)) {
+            free = false;
+            break;
+          }
+          cells.push(k);
+        }
+      }
+      if (free) for (const k of cells) spilled.set(k, anchor);
+      else blocked.add(anchor);
+    }
+    s.spilled = spilled;
+    s.blocked = blocked;
+    const changed: Area[] = [];
+    const cellArea = (k: string): Area => {
+      const [r, c] = splitKey(k);
+      return { sheet: s.name, top: r, bottom: r, left: c, right: c };
+    };
+    for (const [k, a] of before) if (spilled.get(k) !== a) changed.push(cellArea(k));
+    for (const [k, a] of spilled) if (before.get(k) !== a) changed.push(cellArea(k));
+    for (const k of beforeBlocked) if (!blocked.has(k)) changed.push(cellArea(k));
+    for (const k of blocked) if (!beforeBlocked.has(k)) changed.push(cellArea(k));
+    return changed;
+  }
+
+  /** Formulas that read any of the areas. */
+  formulasReading(areas: Area[]): FormulaCell[] {
+    return this.allFormulas().filter((f) => f.reads.some((r) => areas.some((a) => intersects(r, a))));
+  }
+}
