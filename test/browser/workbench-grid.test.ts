@@ -1,0 +1,209 @@
+/**
+ * The workbench's grid and formulas in Debian's Chromium: the page loads under its policy, COVARY formulas are
+ * evaluated by dist/functions.js in the formula worker and follow edits, results spill (or show #SPILL!), errors
+ * show like Excel's with their message, selection gives Excel-style addresses, and cell text is never markup.
+ * Expected correlations come from Pearson's definition computed here in the test (harness.pearsonReference) on the
+ * grid's own numbers, not from the project's code.
+ */
+import * as fs from 'fs';
+import {
+  BrowserSession, RunningWorkbench, cell, cellValue, columnNumbers, foreignRequests, openBrowser, pearsonReference,
+  screenshot, settle, showSheet, startWorkbench, typeInto,
+} from './harness';
+
+jest.setTimeout(120000);
+
+let server: RunningWorkbench;
+let browser: BrowserSession;
+const timings: Record<string, number> = {};
+
+beforeAll(async () => {
+  let t = Date.now();
+  server = await startWorkbench();
+  timings.serverStartMs = Date.now() - t;
+  browser = await openBrowser(server.origin);
+  t = Date.now();
+  const response = await browser.page.goto(server.url);
+  (globalThis as { cspHeader?: string }).cspHeader = response?.headers()['content-security-policy'];
+  await settle(browser.page);
+  timings.pageReadyMs = Date.now() - t;
+}, 300000);
+
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+  if (Object.keys(timings).length) process.stdout.write(`workbench-grid timings: ${JSON.stringify(timings)}\n`);
+});
+
+const page = () => browser.page;
+
+/** The demo pair's numbers (North!B2:C49), pairwise complete. */
+async function demoPair(): Promise<{ x: number[]; y: number[] }> {
+  const bs = await columnNumbers(page(), 'North', 'B', 2, 49);
+  const cs = await columnNumbers(page(), 'North', 'C', 2, 49);
+  const x: number[] = [];
+  const y: number[] = [];
+  bs.forEach((b, i) => {
+    const c = cs[i];
+    if (b !== null && c !== null) {
+      x.push(b);
+      y.push(c);
+    }
+  });
+  return { x, y };
+}
+
+describe('the workbench page', () => {
+  test('loads with its sheets, demo tables and the functions from functions.js', async () => {
+    await expect(page().title()).resolves.toBe('Covary workbench');
+    const tabs = await page().locator('.wb-tab').allTextContents();
+    expect(tabs).toEqual(['North', 'South', 'Monthly figures', 'Live formulas']);
+    await expect(cell(page(), 'A1').textContent()).resolves.toBe('Workshop');
+    await expect(cell(page(), 'B1').textContent()).resolves.toBe('Mechanics (FTE)');
+    await expect(page().locator('[data-testid="formula-status"]').textContent()).resolves.toMatch(/COVARY functions loaded from functions\.js/);
+    await expect(page().locator('[data-testid="name-box"]').inputValue()).resolves.toBe('B1:C49');
+    await screenshot(page(), 'workbench-loaded');
+  });
+
+  test('the policy is sent as a header and matches the page meta tag', async () => {
+    const header = (globalThis as { cspHeader?: string }).cspHeader;
+    const meta = await page().locator('meta[http-equiv="Content-Security-Policy"]').getAttribute('content');
+    expect(meta).toMatch(/default-src 'none'/);
+    expect(meta).toMatch(/script-src 'self'/);
+    expect(header).toBe(meta);
+  });
+});
+
+describe('COVARY formulas hosted from dist/functions.js', () => {
+  test('COEF beside the demo table equals Pearson r of the same cells', async () => {
+    const { x, y } = await demoPair();
+    expect(x.length).toBe(48);
+    const r = await cellValue(page(), 'North!N2');
+    expect(typeof r).toBe('number');
+    // Reference: Pearson's definition computed in this test; relative tolerance 1e-9.
+    expect(r as number).toBeCloseTo(pearsonReference(x, y), 9);
+    await expect(cell(page(), 'N5').textContent()).resolves.toBe('48');
+  });
+
+  test('INTERVAL spills across two cells around r; PVALUE is a probability', async () => {
+    const r = (await cellValue(page(), 'North!N2')) as number;
+    const lower = (await cellValue(page(), 'North!N3')) as number;
+    const upper = (await cellValue(page(), 'North!O3')) as number;
+    expect(typeof lower).toBe('number');
+    expect(typeof upper).toBe('number');
+    expect(lower).toBeLessThan(r);
+    expect(upper).toBeGreaterThan(r);
+    expect(upper).toBeLessThanOrEqual(1);
+    const p = (await cellValue(page(), 'North!N4')) as number;
+    expect(p).toBeGreaterThanOrEqual(0);
+    expect(p).toBeLessThan(0.001);
+  });
+
+  test('editing a data cell recalculates the formulas that read it', async () => {
+    const before = (await cellValue(page(), 'North!N2')) as number;
+    const old = await cellValue(page(), 'North!C5');
+    await typeInto(page(), 'North', 'C5', '400');
+    const after = (await cellValue(page(), 'North!N2')) as number;
+    expect(after).not.toBeCloseTo(before, 6);
+    const { x, y } = await demoPair();
+    expect(after).toBeCloseTo(pearsonReference(x, y), 9);
+    // The formula on another sheet that reads North!B:C by a sheet-qualified range followed too.
+    await expect(cellValue(page(), "'Live formulas'!B2")).resolves.toBeCloseTo(after, 12);
+    await screenshot(page(), 'workbench-after-edit');
+    await typeInto(page(), 'North', 'C5', String(old));
+    await expect(cellValue(page(), 'North!N2')).resolves.toBeCloseTo(before, 12);
+  });
+
+  test('a blank cell is skipped pairwise (passed as null), so PAIRS drops by one', async () => {
+    const old = await cellValue(page(), 'North!B7');
+    await typeInto(page(), 'North', 'B7', '');
+    await expect(cellValue(page(), 'North!N5')).resolves.toBe(47);
+    const { x, y } = await demoPair();
+    await expect(cellValue(page(), 'North!N2')).resolves.toBeCloseTo(pearsonReference(x, y), 9);
+    await typeInto(page(), 'North', 'B7', String(old));
+    await expect(cellValue(page(), 'North!N5')).resolves.toBe(48);
+  });
+
+  test('a spilled result shows #SPILL! while a cell blocks it, and spills again when cleared', async () => {
+    await typeInto(page(), 'North', 'O3', 'in the way');
+    await expect(cell(page(), 'N3').textContent()).resolves.toBe('#SPILL!');
+    await expect(cell(page(), 'N3').getAttribute('title')).resolves.toMatch(/not empty/);
+    await typeInto(page(), 'North', 'O3', '');
+    await expect(cellValue(page(), 'North!O3')).resolves.toEqual(expect.any(Number));
+  });
+
+  test('sheet-qualified and quoted ranges, omitted arguments and three-cell spills work', async () => {
+    await showSheet(page(), 'Live formulas');
+    await expect(cellValue(page(), "'Live formulas'!B10")).resolves.toEqual(expect.any(Number));
+    for (const address of ['B11', 'C11', 'D11', 'B12', 'C12', 'D12']) {
+      await expect(cellValue(page(), `'Live formulas'!${address}`)).resolves.toEqual(expect.any(Number));
+    }
+    // A 90% interval is narrower than a 95% one for the same reported r and n.
+    const width95 = ((await cellValue(page(), "'Live formulas'!C11")) as number) - ((await cellValue(page(), "'Live formulas'!B11")) as number);
+    const width90 = ((await cellValue(page(), "'Live formulas'!C12")) as number) - ((await cellValue(page(), "'Live formulas'!B12")) as number);
+    expect(width90).toBeLessThan(width95);
+    await screenshot(page(), 'workbench-live-formulas');
+  });
+
+  test('a function error shows its code with the message as the tooltip', async () => {
+    await typeInto(page(), 'Live formulas', 'B15', '=COVARY.COEF({1,2,3}, {5,5,5})');
+    await expect(cell(page(), 'B15').textContent()).resolves.toBe('#VALUE!');
+    await expect(cell(page(), 'B15').getAttribute('title')).resolves.toMatch(/constant/);
+    await typeInto(page(), 'Live formulas', 'B16', '=COVARY.NOSUCH(1)');
+    await expect(cell(page(), 'B16').textContent()).resolves.toBe('#NAME?');
+    await typeInto(page(), 'Live formulas', 'B17', '=COVARY.COEF(Nowhere!A1:A3, B1:B3)');
+    await expect(cell(page(), 'B17').textContent()).resolves.toBe('#REF!');
+    // An error in an input answers the formula without a call, as in Excel.
+    await typeInto(page(), 'Live formulas', 'B18', '=COVARY.COEF(B15:B17, B2:B4)');
+    await expect(cell(page(), 'B18').textContent()).resolves.toBe('#VALUE!');
+    await screenshot(page(), 'workbench-errors');
+  });
+});
+
+describe('selection', () => {
+  test('click, shift-click and drag select ranges with Excel-style addresses', async () => {
+    await showSheet(page(), 'North');
+    await cell(page(), 'D2').click();
+    await expect(page().evaluate(() => window.covaryWorkbench?.selection())).resolves.toBe('North!D2');
+    await cell(page(), 'E49').click({ modifiers: ['Shift'] });
+    await expect(page().evaluate(() => window.covaryWorkbench?.selection())).resolves.toBe('North!D2:E49');
+    await expect(page().locator('[data-testid="name-box"]').inputValue()).resolves.toBe('D2:E49');
+    await cell(page(), 'F2').scrollIntoViewIfNeeded();
+    const from = await cell(page(), 'F2').boundingBox();
+    const to = await cell(page(), 'G9').boundingBox();
+    if (!from || !to) throw new Error('cells not visible');
+    await page().mouse.move(from.x + 5, from.y + 5);
+    await page().mouse.down();
+    await page().mouse.move(to.x + 5, to.y + 5, { steps: 6 });
+    await page().mouse.up();
+    await expect(page().evaluate(() => window.covaryWorkbench?.selection())).resolves.toBe('North!F2:G9');
+    await page().locator('th.wb-colhead', { hasText: /^B$/ }).click();
+    await expect(page().evaluate(() => window.covaryWorkbench?.selection())).resolves.toBe('North!B1:B49');
+  });
+});
+
+describe('cell text is data, never markup', () => {
+  const payload = '<img src=x onerror=alert(1)>';
+
+  test('a header and a cell holding an img tag show it as text and run nothing', async () => {
+    await typeInto(page(), 'South', 'A1', payload);
+    await typeInto(page(), 'South', 'A3', payload);
+    await expect(cell(page(), 'A1').textContent()).resolves.toBe(payload);
+    await expect(cell(page(), 'A3').textContent()).resolves.toBe(payload);
+    await page().waitForTimeout(300);
+    await expect(page().locator('img').count()).resolves.toBe(0);
+    expect(browser.dialogs).toEqual([]);
+    await screenshot(page(), 'workbench-markup-as-text');
+  });
+});
+
+describe('after all of the above', () => {
+  test('no request left localhost and the page raised no errors', async () => {
+    expect(browser.requests.length).toBeGreaterThan(3);
+    expect(foreignRequests(browser.requests, server.origin)).toEqual([]);
+    expect(browser.requests.some((u) => u.endsWith('/functions.js'))).toBe(true);
+    expect(browser.pageErrors).toEqual([]);
+    expect(browser.consoleErrors.filter((m) => /Content Security Policy|Refused/i.test(m))).toEqual([]);
+    expect(fs.existsSync(`${__dirname}/../../test-artifacts/workbench-loaded.png`)).toBe(true);
+  });
+});
