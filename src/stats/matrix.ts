@@ -38,7 +38,7 @@ export interface CorrelationMatrix {
 /**
  * How long a matrix may take, and the cost model that predicts it before any work is done. Figures measured on
  * the project's 2-core build machine (node 20), best of three runs on a shared machine, then rounded up
- * (the benchmark is test/unit/compare/matrix-limits.test.ts, which also checks the model still holds):
+ * (re-run with COVARY_BENCH=1 on test/unit/compare/matrix-limits.test.ts, which times requests at the limit):
  * - "linear" pairs (Pearson; Spearman on columns without gaps, ranked once per column): about 10 us per pair
  *   plus 30 ns per row.
  * - "sorted" pairs (Kendall; Spearman on a pair with gaps, ranked per pair): each pair sorts its rows. Up to 256
