@@ -1,0 +1,96 @@
+/**
+ * The Compare section's numbers: two Pearson correlations with their intervals, and their difference with Zou's
+ * (2007) interval and the p-value of the test that fits the design. The statistics are the core's
+ * (src/stats/compare-*.ts); this module only lines up the columns for the chosen design. Pure.
+ */
+import { CellBlock, formatBlock } from './address';
+import { compareIndependentSamples } from '../src/stats/compare-independent';
+import { compareSeparateSamples } from '../src/stats/compare-separate';
+import { compareSharedSamples } from '../src/stats/compare-shared';
+import { ComparisonResult, pearsonFisherInterval } from '../src/stats/comparison';
+import { Interval, StatsInputError } from '../src/stats/types';
+import { Design, DesignDetection } from './design';
+import { ColumnRead, columnNumbers, completeRows, dataStart, pairColumns, PairingError } from './pairs';
+
+/** The data cells of a column read, as a block (header excluded). */
+export function dataBlock(read: ColumnRead): CellBlock {
+  const start = dataStart(read);
+  return {
+    sheet: read.sheet,
+    firstRow: read.firstRow + start,
+    lastRow: read.firstRow + Math.max(start, read.values.length) - 1,
+    firstColumn: read.firstColumn,
+    lastColumn: read.firstColumn,
+  };
+}
+
+export interface CompareView {
+  design: Design;
+  result: ComparisonResult;
+  /** Interval of each correlation on its own (Fisher z), at the same level. */
+  interval1: Interval;
+  interval2: Interval;
+  labels: { a: string; b: string };
+  /** Where each pair's first column sits, e.g. "North!B2:B41". */
+  where: { a: string; b: string };
+  /** Rows dropped because a cell was not a number (per group for independent groups). */
+  skipped: number;
+}
+
+export interface CompareFailure {
+  error: string;
+}
+
+export function isCompareFailure(v: CompareView | CompareFailure): v is CompareFailure {
+  return (v as CompareFailure).error !== undefined;
+}
+
+/**
+ * Compares pair A = (a[0], a[1]) with pair B = (b[0], b[1]) under `design`; for "shared", `detection.common`
+ * says which column is in both pairs.
+ */
+export function computeComparison(
+  a: [ColumnRead, ColumnRead],
+  b: [ColumnRead, ColumnRead],
+  design: Design,
+  detection: DesignDetection,
+  level: number,
+): CompareView | CompareFailure {
+  const opts = { tail: 'both' as const, level };
+  const labels = { a: `${a[1].header} with ${a[0].header}`, b: `${b[1].header} with ${b[0].header}` };
+  try {
+    let result: ComparisonResult;
+    let skipped = 0;
+    if (design === 'independent') {
+      const pa = pairColumns(a[0], a[1]);
+      const pb = pairColumns(b[0], b[1]);
+      skipped = pa.skipped + pb.skipped;
+      result = compareIndependentSamples(pa.x, pa.y, pb.x, pb.y, opts);
+    } else if (design === 'shared') {
+      if (!detection.common) return { error: 'Pick pairs that share exactly one column for this design.' };
+      const ia = detection.common.a;
+      const ib = detection.common.b;
+      const cols = completeRows([columnNumbers(a[ia]), columnNumbers(a[1 - ia]), columnNumbers(b[1 - ib])]);
+      skipped = cols.skipped;
+      const [common, otherA, otherB] = cols.columns;
+      result = compareSharedSamples(common, otherA, otherB, opts);
+    } else {
+      const cols = completeRows([columnNumbers(a[0]), columnNumbers(a[1]), columnNumbers(b[0]), columnNumbers(b[1])]);
+      skipped = cols.skipped;
+      const [a0, a1, b0, b1] = cols.columns;
+      result = compareSeparateSamples(a0, a1, b0, b1, opts);
+    }
+    return {
+      design,
+      result,
+      interval1: pearsonFisherInterval(result.r1, result.n1, level),
+      interval2: pearsonFisherInterval(result.r2, result.n2, level),
+      labels,
+      where: { a: formatBlock(dataBlock(a[0])), b: formatBlock(dataBlock(b[0])) },
+      skipped,
+    };
+  } catch (e) {
+    if (e instanceof StatsInputError || e instanceof PairingError) return { error: e.message };
+    throw e;
+  }
+}

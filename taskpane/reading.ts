@@ -1,0 +1,69 @@
+/**
+ * The panel's plain-language reading of one correlation: strength, direction, what the interval and the
+ * p-value say (and what the p-value does not say). Pure.
+ */
+import type { CorrelationResult } from '../src/stats/types';
+
+/**
+ * Strength words by |r| after Cohen (1988), Statistical Power Analysis for the Behavioral Sciences, 2nd ed.,
+ * Erlbaum, section 3.2: .1 small, .3 medium, .5 large. A convention for when nothing better is known about
+ * the field, not a law.
+ */
+export function strengthWord(r: number): string {
+  const a = Math.abs(r);
+  if (a >= 0.5) return 'strong';
+  if (a >= 0.3) return 'moderate';
+  if (a >= 0.1) return 'weak';
+  return 'negligible';
+}
+
+/** r, an interval bound or a difference, two decimals with a true minus sign. */
+export function formatR(r: number): string {
+  if (!Number.isFinite(r)) return '–';
+  let s = r.toFixed(2);
+  // Keep the sign visible when two decimals would round a small value to zero (an interval bound just below 0).
+  if (r !== 0 && Math.abs(r) < 0.005) s = r.toFixed(3);
+  return s.replace('-', '−');
+}
+
+/** A p-value for display: "< 0.001" below a thousandth, else three decimals. */
+export function formatPValue(p: number): string {
+  if (!Number.isFinite(p)) return '–';
+  if (p < 0.001) return '< 0.001';
+  return p.toFixed(3);
+}
+
+/** A whole count with thousands separators. */
+export function formatCount(n: number): string {
+  return Math.round(n).toLocaleString('en-US');
+}
+
+/**
+ * Two or three short sentences: the strength and direction, the interval, the p-value.
+ * @example readCorrelation(res, 'Visits', 'Sales') // "Moderate positive association: higher Visits go with higher Sales..."
+ */
+export function readCorrelation(res: CorrelationResult, xName: string, yName: string): string[] {
+  const r = res.statistic;
+  const strength = strengthWord(r);
+  const lines: string[] = [];
+  if (strength === 'negligible') {
+    lines.push(`Little or no ${res.method === 'pearson' ? 'straight-line ' : ''}association between ${xName} and ${yName} in these ${formatCount(res.n)} rows.`);
+  } else {
+    const direction = r > 0 ? 'higher' : 'lower';
+    lines.push(
+      `${strength[0].toUpperCase()}${strength.slice(1)} ${r > 0 ? 'positive' : 'negative'} association: higher ${xName} tends to go with ${direction} ${yName} (Cohen's convention: 0.1 weak, 0.3 moderate, 0.5 strong).`,
+    );
+  }
+  const pct = `${Math.round(res.interval.level * 100)}%`;
+  if (Number.isFinite(res.interval.lower)) {
+    const crosses = res.interval.lower < 0 && res.interval.upper > 0;
+    lines.push(
+      `The ${pct} interval, ${formatR(res.interval.lower)} to ${formatR(res.interval.upper)}, holds the correlations these data are consistent with${crosses ? '; it includes zero' : ''}.`,
+    );
+  }
+  const p = formatPValue(res.pValue);
+  lines.push(
+    `p ${p.startsWith('<') ? p : `= ${p}`} is how often data at least this far from zero correlation would turn up if there were none; it is not the chance that there is none.`,
+  );
+  return lines;
+}

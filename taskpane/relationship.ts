@@ -1,0 +1,216 @@
+/**
+ * Everything the Relationship and Residual sections show for one pair, computed in one pass from the complete
+ * pairs: the correlation, the eight checks with their per-point diagnostics, the smooth, and the few thousand
+ * points to draw. Pure and host-free, so it runs on the main thread or in the panel's worker alike; the result
+ * is plain data (typed arrays, objects) that survives structured cloning.
+ *
+ * Statistics use every row; only the drawing is thinned (see draw-sample.ts).
+ */
+import { correlate } from '../src/stats/correlate';
+import { normalQuantile } from '../src/stats/distributions';
+import { lowess } from '../src/stats/lowess';
+import { runChecks } from '../src/stats/checks/run-checks';
+import type { CheckRow } from '../src/stats/checks/check-report';
+import { CorrelationResult, Method, StatsInputError } from '../src/stats/types';
+import { drawSample } from './draw-sample';
+import type { PairedRows } from './pairs';
+import { readCorrelation } from './reading';
+
+export interface RelationshipOptions {
+  method: Method;
+  /** Confidence level, e.g. 0.95. */
+  level: number;
+  /** Significance level of the checks, e.g. 0.05. */
+  alpha: number;
+  /** The most points a chart draws. */
+  drawLimit: number;
+}
+
+export const DEFAULT_RELATIONSHIP_OPTIONS: RelationshipOptions = { method: 'pearson', level: 0.95, alpha: 0.05, drawLimit: 2000 };
+
+/** Most points the smooth is computed on: LOWESS on a fixed-hash uniform sample of this size beyond it. */
+export const SMOOTH_LIMIT = 2000;
+
+/** Why a drawn point is highlighted. Bit flags, so one point may carry several. */
+export const FLAG_OUTLIER = 1;
+export const FLAG_INFLUENTIAL = 2;
+export const FLAG_SETS_SLOPE = 4;
+
+/** The points actually drawn, one entry each. */
+export interface DrawnPoints {
+  /** Sheet row of each point. */
+  rows: Int32Array;
+  x: Float64Array;
+  y: Float64Array;
+  fitted: Float64Array;
+  residuals: Float64Array;
+  /** Normal quantile of the point's residual rank among ALL residuals (Q-Q plot abscissa). */
+  normalScore: Float64Array;
+  /** Highlight reasons (FLAG_* bits), 0 for an ordinary point. */
+  flags: Uint8Array;
+  studentized: Float64Array;
+  cooksDistance: Float64Array;
+  leverage: Float64Array;
+}
+
+export interface RelationshipView {
+  sheet: string;
+  xHeader: string;
+  yHeader: string;
+  /** Data rows read, pairs used, rows skipped. */
+  total: number;
+  n: number;
+  skipped: number;
+  correlation: CorrelationResult;
+  line: { slope: number; intercept: number };
+  checks: CheckRow[];
+  flags: string[];
+  /** Sheet rows of every flagged point (not only the drawn ones). */
+  flaggedRows: number[];
+  drawn: DrawnPoints;
+  smooth: { x: Float64Array; y: Float64Array } | null;
+  /** Reference line of the Q-Q plot through the quartiles: residual = qqIntercept + qqSlope * normal score. */
+  qqLine: { intercept: number; slope: number };
+  reading: string[];
+  /** Milliseconds spent computing (not drawing). */
+  computeMs: number;
+}
+
+/** A computation that could not run, with a message for the user. */
+export interface RelationshipFailure {
+  error: string;
+}
+
+/**
+ * Plotting positions for a normal Q-Q plot, as R's ppoints(): (i - a)/(n + 1 - 2a) with a = 3/8 for n <= 10
+ * (Blom 1958, Statistical Estimates and Transformed Beta-Variables, Wiley) and a = 1/2 above (Hazen 1914).
+ */
+export function plottingPosition(rank: number, n: number): number {
+  const a = n <= 10 ? 3 / 8 : 1 / 2;
+  return (rank + 1 - a) / (n + 1 - 2 * a);
+}
+
+/** Value at a given probability from sorted data (R's quantile type 7, Hyndman & Fan 1996, Am. Stat. 50:361-365). */
+function sortedQuantile(sorted: ArrayLike<number>, p: number): number {
+  const h = (sorted.length - 1) * p;
+  const lo = Math.floor(h);
+  const hi = Math.min(sorted.length - 1, lo + 1);
+  return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
+}
+
+/**
+ * Rank (0-based) of a value in sorted data: the middle of its run of ties, so tied residuals share one
+ * plotting position (as with average ranks).
+ */
+export function rankIn(sorted: Float64Array, v: number): number {
+  let lo = 0;
+  let hi = sorted.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >>> 1;
+    if (sorted[mid] < v) lo = mid + 1;
+    else hi = mid;
+  }
+  const first = lo;
+  hi = sorted.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >>> 1;
+    if (sorted[mid] <= v) lo = mid + 1;
+    else hi = mid;
+  }
+  return (first + lo - 1) / 2;
+}
+
+const now = (): number => (typeof performance !== 'undefined' ? performance.now() : Date.now());
+
+/**
+ * Computes the view of one pair. Statistical input errors (too few pairs, a constant column) come back as a
+ * failure with the core's message rather than an exception.
+ */
+export function analyseRelationship(p: PairedRows, opts: RelationshipOptions): RelationshipView | RelationshipFailure {
+  const t0 = now();
+  try {
+    const { x, y, rows } = p;
+    const n = x.length;
+    const correlation = correlate(x, y, { method: opts.method, tail: 'both', level: opts.level });
+    const report = runChecks(x, y, { alpha: opts.alpha, rows });
+    const pts = report.points;
+
+    // Sorted residuals (native numeric sort) for the Q-Q abscissae and the quartile line.
+    const sortedResiduals = Float64Array.from(pts.residuals).sort();
+    // Chambers, Cleveland, Kleiner & Tukey (1983), Graphical Methods for Data Analysis, sec. 6.3: the reference
+    // line through the first and third quartiles (as R's qqline).
+    const q1 = sortedQuantile(sortedResiduals, 0.25);
+    const q3 = sortedQuantile(sortedResiduals, 0.75);
+    const z1 = normalQuantile(0.25);
+    const z3 = normalQuantile(0.75);
+    const qqSlope = (q3 - q1) / (z3 - z1);
+    const qqLine = { slope: qqSlope, intercept: q1 - qqSlope * z1 };
+
+    const reason = new Uint8Array(n);
+    for (const i of pts.outliers) reason[i] |= FLAG_OUTLIER;
+    for (const i of pts.influential) reason[i] |= FLAG_INFLUENTIAL;
+    if (pts.setsSlope >= 0) reason[pts.setsSlope] |= FLAG_SETS_SLOPE;
+
+    const pick = drawSample(n, pts.flagged, opts.drawLimit);
+    const m = pick.length;
+    const drawn: DrawnPoints = {
+      rows: new Int32Array(m),
+      x: new Float64Array(m),
+      y: new Float64Array(m),
+      fitted: new Float64Array(m),
+      residuals: new Float64Array(m),
+      normalScore: new Float64Array(m),
+      flags: new Uint8Array(m),
+      studentized: new Float64Array(m),
+      cooksDistance: new Float64Array(m),
+      leverage: new Float64Array(m),
+    };
+    for (let k = 0; k < m; k++) {
+      const i = pick[k];
+      drawn.rows[k] = rows[i];
+      drawn.x[k] = x[i];
+      drawn.y[k] = y[i];
+      drawn.fitted[k] = pts.fitted[i];
+      drawn.residuals[k] = pts.residuals[i];
+      drawn.normalScore[k] = normalQuantile(plottingPosition(rankIn(sortedResiduals, pts.residuals[i]), n));
+      drawn.flags[k] = reason[i];
+      drawn.studentized[k] = pts.studentized[i];
+      drawn.cooksDistance[k] = pts.cooksDistance[i];
+      drawn.leverage[k] = pts.leverage[i];
+    }
+
+    let smooth: RelationshipView['smooth'] = null;
+    if (n >= 4) {
+      const base = drawSample(n, [], SMOOTH_LIMIT);
+      const sx = Float64Array.from(base, (i) => x[i]);
+      const sy = Float64Array.from(base, (i) => y[i]);
+      smooth = lowess(sx, sy);
+    }
+
+    return {
+      sheet: p.sheet,
+      xHeader: p.xHeader,
+      yHeader: p.yHeader,
+      total: p.total,
+      n,
+      skipped: p.skipped,
+      correlation,
+      line: { slope: report.line.slope, intercept: report.line.intercept },
+      checks: report.checks,
+      flags: report.flags,
+      flaggedRows: pts.flagged.map((i) => rows[i]),
+      drawn,
+      smooth,
+      qqLine,
+      reading: readCorrelation(correlation, p.xHeader, p.yHeader),
+      computeMs: now() - t0,
+    };
+  } catch (e) {
+    if (e instanceof StatsInputError) return { error: e.message };
+    throw e;
+  }
+}
+
+export function isFailure(v: RelationshipView | RelationshipFailure): v is RelationshipFailure {
+  return (v as RelationshipFailure).error !== undefined;
+}

@@ -1,0 +1,138 @@
+/**
+ * What the two write buttons put into the workbook: the COVARY formulas for the current pair beside the data,
+ * and a report sheet. Formulas (not pasted values) so the results stay live in the workbook after the panel is
+ * closed. Pure: builds cell blocks and addresses; the panel writes them through the Workbook interface.
+ */
+import { CellBlock, columnLetters, formatBlock, quoteSheet } from './address';
+import type { ColumnSource } from './workbook';
+import type { Method } from '../src/stats/types';
+
+/** How one column of the pair is referred to in a formula. */
+export interface ColumnRef {
+  source: ColumnSource;
+  /** The data cells (header excluded) as read. */
+  block: CellBlock;
+}
+
+/**
+ * Escapes a table column name for a structured reference: ', [, ], # are prefixed with ' (Excel's rule for
+ * special characters in column specifiers).
+ */
+export function escapeColumnName(name: string): string {
+  return name.replace(/['[\]#]/g, (c) => `'${c}`);
+}
+
+/**
+ * A reference to a column for a formula written on `targetSheet`:
+ * - table columns as structured references (Branches[Visits]), which follow the table as it grows, unless
+ *   `a1` is asked for (hosts that do not evaluate structured references);
+ * - ranges as absolute A1 references, with the sheet name only when the formula is on another sheet.
+ */
+export function columnReference(ref: ColumnRef, targetSheet: string, a1 = false): string {
+  if (ref.source.kind === 'table' && !a1) {
+    const name = ref.source.column;
+    const plain = /^[A-Za-z_][A-Za-z0-9_]*$/.test(name);
+    return plain ? `${ref.source.table}[${name}]` : `${ref.source.table}[[${escapeColumnName(name)}]]`;
+  }
+  const block = ref.block.sheet === targetSheet ? { ...ref.block, sheet: '' } : ref.block;
+  return formatBlock(block, true);
+}
+
+export interface FormulaOptions {
+  method: Method;
+  level: number;
+  alpha: number;
+  /** Use A1 references even for table columns. */
+  a1?: boolean;
+}
+
+const METHOD_NAMES: Record<Method, string> = { pearson: 'Pearson', spearman: 'Spearman', kendall: 'Kendall' };
+
+/** A text for a cell: a string literal inside a formula, doubling quotes. */
+function literal(s: string): string {
+  return `"${s.replace(/"/g, '""')}"`;
+}
+
+/** Six rows by two columns: labels and formulas (the interval spills one cell to the right of its formula). */
+export function formulaBlock(
+  x: ColumnRef,
+  y: ColumnRef,
+  names: { x: string; y: string },
+  targetSheet: string,
+  o: FormulaOptions,
+): string[][] {
+  const xr = columnReference(x, targetSheet, o.a1);
+  const yr = columnReference(y, targetSheet, o.a1);
+  const args = `${xr}, ${yr}`;
+  const m = literal(o.method);
+  const pct = `${Math.round(o.level * 1000) / 10}%`;
+  return [
+    [`Covary: ${names.y} against ${names.x}`, ''],
+    [`Coefficient (${METHOD_NAMES[o.method]})`, `=COVARY.COEF(${args}, ${m})`],
+    [`${pct} interval (lower, upper)`, `=COVARY.INTERVAL(${args}, ${o.level}, ${m})`],
+    ['p-value (two-sided)', `=COVARY.PVALUE(${args}, "both", ${m})`],
+    ['Pairs used', `=COVARY.PAIRS(${args})`],
+    ['Flags', `=COVARY.FLAGS(${args}, ${o.alpha})`],
+  ];
+}
+
+/** Width of the formula block including the interval's spill cell. */
+export const FORMULA_BLOCK_COLUMNS = 3;
+export const FORMULA_BLOCK_ROWS = 6;
+
+/**
+ * Candidate places for the formula block: the top row of the data, starting two columns to the right of the
+ * rightmost data column, then further right one step at a time. The caller takes the first empty one.
+ */
+export function formulaPlaces(blocks: CellBlock[], tries = 12): CellBlock[] {
+  const sheet = blocks[0].sheet;
+  const top = Math.min(...blocks.map((b) => b.firstRow));
+  const right = Math.max(...blocks.map((b) => b.lastColumn));
+  const out: CellBlock[] = [];
+  for (let k = 0; k < tries; k++) {
+    const first = right + 2 + k * (FORMULA_BLOCK_COLUMNS + 1);
+    if (first + FORMULA_BLOCK_COLUMNS - 1 > 16384) break;
+    out.push({ sheet, firstRow: Math.max(1, top - 1), lastRow: Math.max(1, top - 1) + FORMULA_BLOCK_ROWS - 1, firstColumn: first, lastColumn: first + FORMULA_BLOCK_COLUMNS - 1 });
+  }
+  return out;
+}
+
+/** True when every cell of a read block is blank. */
+export function allBlank(values: unknown[][]): boolean {
+  return values.every((row) => row.every((v) => v === null || v === undefined || v === ''));
+}
+
+/** Top-left address of a block, with its sheet. */
+export function topLeftOf(b: CellBlock): string {
+  return `${quoteSheet(b.sheet)}!${columnLetters(b.firstColumn)}${b.firstRow}`;
+}
+
+/** The lines of caution repeated on the report sheet. */
+export const REPORT_CAUTIONS = [
+  'A correlation is not evidence that one variable causes the other.',
+  'Small samples, or rows selected on either variable, can give a very different correlation from the whole population.',
+  'Before using this in decisions about people or money (hiring, pay, dismissal, credit, investment), check fairness and adverse-impact rules where you are, and consult qualified professionals.',
+];
+
+/**
+ * The report sheet: a title, the data used, the cautions, then the COVARY.REPORT summary (spilling two columns)
+ * and, beside it from column D, the COVARY.CHECKS table. References carry their sheet (the report is on a new
+ * sheet).
+ */
+export function reportSheetCells(x: ColumnRef, y: ColumnRef, names: { x: string; y: string }, o: FormulaOptions, writtenAt: Date): string[][] {
+  const xr = columnReference(x, '', o.a1);
+  const yr = columnReference(y, '', o.a1);
+  const args = `${xr}, ${yr}`;
+  const width = 4;
+  const row = (...cells: string[]): string[] => [...cells, ...Array(width - cells.length).fill('')];
+  return [
+    row('Covary report'),
+    row('x', `${names.x} (${formatBlock(x.block)})`),
+    row('y', `${names.y} (${formatBlock(y.block)})`),
+    row('Written', writtenAt.toISOString().replace('T', ' ').slice(0, 16) + ' UTC'),
+    ...REPORT_CAUTIONS.map((c, i) => row(i === 0 ? 'Cautions' : '', c)),
+    row(),
+    row('Summary', '', '', 'Assumption checks'),
+    row(`=COVARY.REPORT(${args}, ${o.level}, ${literal(o.method)})`, '', '', `=COVARY.CHECKS(${args}, ${o.alpha})`),
+  ];
+}

@@ -1,0 +1,81 @@
+/**
+ * The Compare section lines up columns for each design and gets the same statistics as psych::r.test in R
+ * (fixture and script: test/fixtures/panel/; R and psych versions in the fixture). Independent groups: Fisher's
+ * z; one column in common: Williams' t (Steiger 1980, eq. 7); separate pairs: Steiger's pooled Z (eq. 14-15).
+ */
+import * as fs from 'fs';
+import * as path from 'path';
+import { computeComparison, dataBlock, isCompareFailure, CompareView } from '../../../taskpane/compare-view';
+import { detectDesign } from '../../../taskpane/design';
+import type { ColumnRead } from '../../../taskpane/pairs';
+
+const R = JSON.parse(fs.readFileSync(path.resolve(__dirname, '../../fixtures/panel/panel-r.json'), 'utf8')).compare;
+const rel = (a: number, b: number): number => Math.abs(a - b) / Math.abs(b);
+
+/** A table column on a sheet: header in row 1, data from row 2. */
+function col(sheet: string, column: number, header: string, data: number[]): ColumnRead {
+  return { address: `${sheet}!col${column}`, sheet, firstRow: 1, firstColumn: column, values: [[header], ...data.map((v) => [v])], header };
+}
+
+const J = col('Same', 1, 'j', R.j);
+const K = col('Same', 2, 'k', R.k);
+const H = col('Same', 3, 'h', R.h);
+const M = col('Same', 4, 'm', R.m);
+const J2 = col('Other', 1, 'j', R.j2);
+const K2 = col('Other', 2, 'k', R.k2);
+
+function run(a: [ColumnRead, ColumnRead], b: [ColumnRead, ColumnRead]): CompareView {
+  const det = detectDesign([dataBlock(a[0]), dataBlock(a[1])], [dataBlock(b[0]), dataBlock(b[1])]);
+  const v = computeComparison(a, b, det.design!, det, 0.95);
+  if (isCompareFailure(v)) throw new Error(v.error);
+  return v;
+}
+
+test('independent groups (another sheet): r1, r2, z, p as psych::r.test(n, r12, r34, n2)', () => {
+  const v = run([J, K], [J2, K2]);
+  expect(v.design).toBe('independent');
+  expect(rel(v.result.r1, R.independent.r1)).toBeLessThan(1e-9);
+  expect(rel(v.result.r2, R.independent.r2)).toBeLessThan(1e-9);
+  expect(rel(v.result.test.value, R.independent.z)).toBeLessThan(1e-9);
+  expect(rel(v.result.pValue, R.independent.p)).toBeLessThan(1e-6);
+});
+
+test('one column in common, in either position: Williams t as psych::r.test(n, r12, r13, r23)', () => {
+  for (const b of [[J, H], [H, J]] as [ColumnRead, ColumnRead][]) {
+    const v = run([J, K], b);
+    expect(v.design).toBe('shared');
+    expect(rel(v.result.r1, R.shared.r1)).toBeLessThan(1e-9);
+    expect(rel(v.result.r2, R.shared.r2)).toBeLessThan(1e-9);
+    expect(rel(v.result.test.value, R.shared.t)).toBeLessThan(1e-9);
+    expect(rel(v.result.pValue, R.shared.p)).toBeLessThan(1e-6);
+  }
+});
+
+test('four different columns on the same rows: Steiger Z as psych::r.test(n, r12, r34, r13, r14, r23, r24)', () => {
+  const v = run([J, K], [H, M]);
+  expect(v.design).toBe('separate');
+  expect(rel(v.result.r1, R.separate.r1)).toBeLessThan(1e-9);
+  expect(rel(v.result.r2, R.separate.r2)).toBeLessThan(1e-9);
+  expect(rel(v.result.test.value, R.separate.z)).toBeLessThan(1e-9);
+  expect(rel(v.result.pValue, R.separate.p)).toBeLessThan(1e-6);
+});
+
+test('each correlation carries its own Fisher-z interval, containing it', () => {
+  const v = run([J, K], [J2, K2]);
+  expect(v.interval1.lower).toBeLessThan(v.result.r1);
+  expect(v.interval1.upper).toBeGreaterThan(v.result.r1);
+  expect(v.interval2.lower).toBeLessThan(v.result.r2);
+  expect(v.where).toEqual({ a: 'Same!A2:A41', b: 'Other!A2:A31' });
+});
+
+test('a shared-variable override without a common column says so', () => {
+  const det = detectDesign([dataBlock(J), dataBlock(K)], [dataBlock(H), dataBlock(M)]);
+  const v = computeComparison([J, K], [H, M], 'shared', det, 0.95);
+  expect(isCompareFailure(v) && v.error).toMatch(/share exactly one column/);
+});
+
+test('too few rows gives the core message', () => {
+  const tiny = (c: ColumnRead): ColumnRead => ({ ...c, values: c.values.slice(0, 4) });
+  const v = computeComparison([tiny(J), tiny(K)], [J2, K2], 'independent', { design: 'independent', why: '' }, 0.95);
+  expect(isCompareFailure(v) && v.error).toMatch(/at least 4/);
+});

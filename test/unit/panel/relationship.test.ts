@@ -1,0 +1,112 @@
+/**
+ * The panel's relationship computation against R 4.2.2 (fixture and script: test/fixtures/panel/, versions in the
+ * fixture): Q-Q plotting positions (stats::ppoints), the Q-Q reference line (stats::qqline's quartile rule),
+ * and Anscombe's (1973) set 3 (cor.test; the outlier is the point with the largest |rstudent|).
+ */
+import * as fs from 'fs';
+import * as path from 'path';
+import { analyseRelationship, FLAG_OUTLIER, isFailure, plottingPosition, rankIn, RelationshipView } from '../../../taskpane/relationship';
+import type { PairedRows } from '../../../taskpane/pairs';
+
+const R = JSON.parse(fs.readFileSync(path.resolve(__dirname, '../../fixtures/panel/panel-r.json'), 'utf8'));
+
+const rel = (a: number, b: number): number => Math.abs(a - b) / Math.max(1e-300, Math.abs(b));
+
+function pairs(x: number[], y: number[], firstRow = 2): PairedRows {
+  return {
+    x: Float64Array.from(x),
+    y: Float64Array.from(y),
+    rows: Int32Array.from(x, (_, i) => firstRow + i),
+    sheet: 'Sheet1',
+    total: x.length,
+    skipped: 0,
+    xHeader: 'x',
+    yHeader: 'y',
+  };
+}
+
+const opts = { method: 'pearson' as const, level: 0.95, alpha: 0.05, drawLimit: 2000 };
+
+describe('Q-Q plot geometry', () => {
+  test('plotting positions equal R ppoints(5) and ppoints(20) (a = 3/8 up to 10 points, 1/2 above)', () => {
+    R.ppoints5.forEach((p: number, i: number) => expect(rel(plottingPosition(i, 5), p)).toBeLessThan(1e-15));
+    R.ppoints20.forEach((p: number, i: number) => expect(rel(plottingPosition(i, 20), p)).toBeLessThan(1e-15));
+  });
+
+  test('rankIn gives 0-based ranks, ties at the middle of their run', () => {
+    const s = Float64Array.of(1, 2, 2, 2, 5);
+    expect(rankIn(s, 1)).toBe(0);
+    expect(rankIn(s, 2)).toBe(2);
+    expect(rankIn(s, 5)).toBe(4);
+  });
+
+  test("Anscombe's set 1 residuals: abscissae equal R qqnorm(e)$x and the line equals R's qqline rule", () => {
+    const v = analyseRelationship(pairs(R.qq.x, R.qq.y), opts) as RelationshipView;
+    R.qq.normalScores.forEach((z: number, i: number) => expect(rel(v.drawn.normalScore[i], z)).toBeLessThan(1e-9));
+    expect(rel(v.qqLine.slope, R.qq.slope)).toBeLessThan(1e-9);
+    expect(rel(v.qqLine.intercept, R.qq.intercept)).toBeLessThan(1e-9);
+  });
+});
+
+describe('Anscombe (1973) set 3 (R datasets::anscombe)', () => {
+  const a3 = R.anscombe3;
+  const v = analyseRelationship(pairs(a3.x, a3.y), opts) as RelationshipView;
+
+  test('r, interval and p equal R cor.test', () => {
+    expect(rel(v.correlation.statistic, a3.r)).toBeLessThan(1e-9);
+    expect(rel(v.correlation.interval.lower, a3.lower)).toBeLessThan(1e-9);
+    expect(rel(v.correlation.interval.upper, a3.upper)).toBeLessThan(1e-9);
+    expect(rel(v.correlation.pValue, a3.p)).toBeLessThan(1e-6);
+  });
+
+  test('the outlier (largest |rstudent| in R) is flagged, drawn and highlighted in its sheet row', () => {
+    const row = 2 + a3.maxAbsRstudentIndex;
+    expect(v.flaggedRows).toContain(row);
+    const k = Array.from(v.drawn.rows).indexOf(row);
+    expect(k).toBeGreaterThanOrEqual(0);
+    expect(v.drawn.flags[k] & FLAG_OUTLIER).toBeTruthy();
+    expect(v.flags.some((f) => f.includes(`row ${row}`))).toBe(true);
+  });
+
+  test('all 11 points are drawn, in row order, with a smooth over the x range', () => {
+    expect(Array.from(v.drawn.rows)).toEqual(a3.x.map((_: number, i: number) => i + 2));
+    expect(v.smooth).not.toBeNull();
+    expect(v.smooth!.x[0]).toBe(Math.min(...a3.x));
+    expect(v.reading.length).toBeGreaterThanOrEqual(3);
+  });
+});
+
+describe('large inputs', () => {
+  test('100,000 pairs: at most drawLimit points drawn, every flagged one among them', () => {
+    const n = 100000;
+    const x: number[] = [];
+    const y: number[] = [];
+    let s = 12345;
+    const rnd = (): number => {
+      s = (s * 16807) % 2147483647;
+      return s / 2147483647;
+    };
+    for (let i = 0; i < n; i++) {
+      x.push(rnd() * 10);
+      y.push(x[i] + rnd());
+    }
+    y[777] = 500; // a gross outlier at sheet row 779
+    const v = analyseRelationship(pairs(x, y), opts) as RelationshipView;
+    expect(v.n).toBe(n);
+    expect(v.drawn.rows.length).toBe(2000);
+    expect(v.flaggedRows).toContain(779);
+    const drawn = new Set(v.drawn.rows);
+    for (const r of v.flaggedRows.slice(0, 2000)) expect(drawn.has(r)).toBe(true);
+  });
+});
+
+describe('failures come back as messages', () => {
+  test('too few pairs', () => {
+    const v = analyseRelationship(pairs([1, 2], [3, 4]), opts);
+    expect(isFailure(v) && v.error).toMatch(/at least 3/);
+  });
+  test('a constant column', () => {
+    const v = analyseRelationship(pairs([1, 1, 1, 1], [3, 4, 5, 6]), opts);
+    expect(isFailure(v)).toBe(true);
+  });
+});

@@ -1,0 +1,63 @@
+/**
+ * What the write buttons put in the sheet. References follow Microsoft's documented formula syntax: absolute A1
+ * references ($B$2:$B$49), sheet names quoted when they hold spaces, structured references Table[Column] with
+ * special characters in a column name escaped by a single quote ("Using structured references with Excel
+ * tables").
+ */
+import { parseAddress } from '../../../taskpane/address';
+import { allBlank, columnReference, escapeColumnName, formulaBlock, formulaPlaces, reportSheetCells, ColumnRef } from '../../../taskpane/sheet-output';
+
+const block = (a: string) => parseAddress(a)![0];
+const rangeRef = (a: string): ColumnRef => ({ source: { kind: 'range', address: a }, block: block(a) });
+const tableRef = (table: string, column: string, a: string): ColumnRef => ({ source: { kind: 'table', table, column }, block: block(a) });
+
+describe('references', () => {
+  test('ranges are absolute; the sheet is named only from another sheet, quoted when needed', () => {
+    expect(columnReference(rangeRef('Staff!B2:B49'), 'Staff')).toBe('$B$2:$B$49');
+    expect(columnReference(rangeRef('Staff!B2:B49'), 'Report')).toBe('Staff!$B$2:$B$49');
+    expect(columnReference(rangeRef("'North branch'!B2:B49"), '')).toBe("'North branch'!$B$2:$B$49");
+  });
+  test('table columns become structured references that follow the table', () => {
+    expect(columnReference(tableRef('Shops', 'Visits', 'S!B2:B9'), 'S')).toBe('Shops[Visits]');
+    expect(columnReference(tableRef('Shops', 'Oven hours', 'S!B2:B9'), 'S')).toBe('Shops[[Oven hours]]');
+    expect(columnReference(tableRef('Shops', 'Visits', 'S!B2:B9'), 'S', true)).toBe('$B$2:$B$9');
+  });
+  test("special characters in column names are escaped with '", () => {
+    expect(escapeColumnName("Q1 [est.] #'s")).toBe("Q1 '[est.'] '#''s");
+  });
+});
+
+describe('formula block', () => {
+  const cells = formulaBlock(rangeRef('Staff!B2:B49'), rangeRef('Staff!C2:C49'), { x: 'Visits', y: 'Sales "net"' }, 'Staff', { method: 'spearman', level: 0.9, alpha: 0.05 });
+  test('six labelled rows with the COVARY functions and their optional arguments in order', () => {
+    expect(cells).toHaveLength(6);
+    expect(cells[1][1]).toBe('=COVARY.COEF($B$2:$B$49, $C$2:$C$49, "spearman")');
+    expect(cells[2][1]).toBe('=COVARY.INTERVAL($B$2:$B$49, $C$2:$C$49, 0.9, "spearman")');
+    expect(cells[3][1]).toBe('=COVARY.PVALUE($B$2:$B$49, $C$2:$C$49, "both", "spearman")');
+    expect(cells[4][1]).toBe('=COVARY.PAIRS($B$2:$B$49, $C$2:$C$49)');
+    expect(cells[5][1]).toBe('=COVARY.FLAGS($B$2:$B$49, $C$2:$C$49, 0.05)');
+    expect(cells[2][0]).toBe('90% interval (lower, upper)');
+  });
+  test('header text is written as plain cell text (never a formula)', () => {
+    expect(cells[0][0].startsWith('=')).toBe(false);
+  });
+  test('places start two columns right of the data, at the header row, moving right', () => {
+    const places = formulaPlaces([block('Staff!B2:B49'), block('Staff!C2:C49')], 3);
+    expect(places.map((p) => [p.firstColumn, p.firstRow, p.lastColumn, p.lastRow])).toEqual([[5, 1, 7, 6], [9, 1, 11, 6], [13, 1, 15, 6]]);
+  });
+  test('blank detection', () => {
+    expect(allBlank([['', null], [undefined, '']])).toBe(true);
+    expect(allBlank([['', 0]])).toBe(false);
+  });
+});
+
+describe('report sheet', () => {
+  test('REPORT and CHECKS formulas with sheet-qualified references, rectangular', () => {
+    const rows = reportSheetCells(rangeRef("'North branch'!B2:B49"), rangeRef("'North branch'!C2:C49"), { x: 'Visits', y: 'Sales' }, { method: 'pearson', level: 0.95, alpha: 0.05 }, new Date(Date.UTC(2024, 4, 1, 9, 30)));
+    expect(new Set(rows.map((r) => r.length)).size).toBe(1);
+    const last = rows[rows.length - 1];
+    expect(last[0]).toBe("=COVARY.REPORT('North branch'!$B$2:$B$49, 'North branch'!$C$2:$C$49, 0.95, \"pearson\")");
+    expect(last[3]).toBe("=COVARY.CHECKS('North branch'!$B$2:$B$49, 'North branch'!$C$2:$C$49, 0.05)");
+    expect(rows[3][1]).toBe('2024-05-01 09:30 UTC');
+  });
+});
