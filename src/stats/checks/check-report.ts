@@ -45,6 +45,8 @@ export interface CheckRow {
   flag?: string;
   /** The point (0-based index into the pairs) the row is about: the outlier row and the influence row. */
   point?: number;
+  /** Where that point is, as named in the messages: "row 12", "position 3". */
+  place?: string;
   /** Further figures behind the row, e.g. skewness, excess kurtosis, df, cut-off. */
   detail: Record<string, number>;
 }

@@ -14,11 +14,13 @@ import { SHAPIRO_WILK_MAX_N, shapiroWilk } from './shapiro-wilk';
 export interface RunChecksOptions {
   /** Significance level of every check, in (0, 1); 0.05 is usual. */
   alpha: number;
-  /** The sheet row (or other number) of each pair, used in messages: "row 12". */
+  /** The sheet row of each pair, used in messages: "row 12". */
   rows?: ArrayLike<number>;
-  /** The word before those numbers, "row" unless said otherwise (e.g. "column" for data laid out in rows). Without
-   * rows, points are named by their 1-based position among the pairs: "position 5". */
-  rowWord?: string;
+  /** Names a pair in messages (e.g. "column F" for data laid out in rows); overrides rows. Without either, pairs
+   * are named by their 1-based position among the pairs: "position 5". */
+  pointName?: (i: number) => string;
+  /** The line fit of y on x when the caller already has it (it must be fitLine(x, y)). */
+  fit?: LineFit;
 }
 
 /** A leverage this close to 1 means the line must pass through that point. */
@@ -49,7 +51,11 @@ function notTestable(key: CheckKey, test: string, reason: string): CheckRow {
 /** Runs one check; a core input error becomes a not-testable row with the error's message as the reason. */
 function safely(key: CheckKey, test: string, build: () => CheckRow): CheckRow {
   try {
-    return build();
+    const row = build();
+    // A statistic or p-value that came out NaN (a degenerate sample) is no answer: say so rather than show it.
+    if (row.statistic !== null && Number.isNaN(row.statistic)) return notTestable(key, test, 'the test is undefined for these values');
+    if (row.pValue !== null && Number.isNaN(row.pValue)) return notTestable(key, test, 'the p-value is undefined for these values');
+    return row;
   } catch (e) {
     if (e instanceof StatsInputError) return notTestable(key, test, e.message);
     throw e;
@@ -77,7 +83,8 @@ function normalityRow(
 ): CheckRow {
   const n = values.length;
   const test = n > SHAPIRO_WILK_MAX_N ? K2_TEST : SW_TEST;
-  const subject = key === 'normal-x' ? 'x' : key === 'normal-y' ? 'y' : 'the scatter around the line';
+  const [subject, verb] =
+    key === 'normal-x' ? ['the x values', 'depart'] : key === 'normal-y' ? ['the y values', 'depart'] : ['the scatter around the line', 'departs'];
   const short = key === 'normal-x' ? 'x' : key === 'normal-y' ? 'y' : 'residuals';
   if (n < minN) return notTestable(key, test, tooFew(minN));
   if (key !== 'normal-residuals' && distinctUpToThree(values) === 2) {
@@ -90,11 +97,11 @@ function normalityRow(
     const shapeWords = `skewness ${num(shape.skewness)}, excess kurtosis ${num(shape.excessKurtosis)}`;
     let meaning: string;
     if (!flagged) {
-      meaning = `No clear sign that ${subject} departs from a normal shape (${shapeWords}).`;
+      meaning = `No clear sign that ${subject} ${verb} from a normal shape (${shapeWords}).`;
     } else if (n > SHAPIRO_WILK_MAX_N) {
-      meaning = `${cap(subject)} departs from a normal shape (${shapeWords}); with ${n} rows even slight departures are detected, so judge by the skewness and kurtosis.`;
+      meaning = `${cap(subject)} ${verb} from a normal shape (${shapeWords}); with ${n} rows even slight departures are detected, so judge by the skewness and kurtosis.`;
     } else {
-      meaning = `${cap(subject)} departs from a normal shape (${shapeWords}), which can make Pearson's p-value and interval inaccurate; rank coefficients do not need a normal shape.`;
+      meaning = `${cap(subject)} ${verb} from a normal shape (${shapeWords}), which can make Pearson's p-value and interval inaccurate; rank coefficients do not need a normal shape.`;
     }
     return {
       key, label: LABELS[key], test, statistic: res.statistic, pValue: res.pValue, verdict: flagged ? 'flag' : 'ok', meaning,
@@ -126,7 +133,11 @@ function cap(s: string): string {
  *   column is constant (no correlation exists to check), or alpha is outside (0, 1).
  * @example runChecks(x, y, { alpha: 0.05 }).flags // e.g. ["curved"]
  */
-export function runChecks(x: ArrayLike<number>, y: ArrayLike<number>, opts: RunChecksOptions): CheckReport {
+export function runChecks(xIn: ArrayLike<number>, yIn: ArrayLike<number>, opts: RunChecksOptions): CheckReport {
+  // One array type throughout keeps every loop below monomorphic (mixing plain arrays and typed arrays in the same
+  // functions makes V8's element access many times slower on a million rows).
+  const x = xIn instanceof Float64Array ? xIn : Float64Array.from(xIn);
+  const y = yIn instanceof Float64Array ? yIn : Float64Array.from(yIn);
   const n = x.length;
   const { alpha } = opts;
   if (y.length !== n) throw new StatsInputError('unequal-length', 'x and y must hold the same number of values');
@@ -138,10 +149,10 @@ export function runChecks(x: ArrayLike<number>, y: ArrayLike<number>, opts: RunC
     }
   }
   if (opts.rows && opts.rows.length !== n) throw new StatsInputError('unequal-length', 'rows must name every pair');
-  const word = opts.rowWord ?? 'row';
-  const where = (i: number): string => (opts.rows ? `${word} ${opts.rows[i]}` : `position ${i + 1}`);
+  const rows = opts.rows;
+  const where = opts.pointName ?? ((i: number): string => (rows ? `row ${rows[i]}` : `position ${i + 1}`));
 
-  const fit = fitLine(x, y);
+  const fit = opts.fit ?? fitLine(x, y);
   const onLine = liesOnLine(y, fit);
   const infl = lineInfluence(x, fit.residuals);
 
@@ -235,7 +246,7 @@ function outlierRow(infl: LineInfluence, onLine: boolean, alpha: number, where: 
     const detail = { df: n - 3 };
     if (!Number.isFinite(t)) {
       return {
-        key, label: LABELS[key], test, statistic: null, pValue: 0, verdict: 'flag', point: i,
+        key, label: LABELS[key], test, statistic: null, pValue: 0, verdict: 'flag', point: i, place: where(i),
         meaning: `${cap(where(i))} is off the straight line on which all the other points lie exactly.`,
         flag: `outlier at ${where(i)}`, detail,
       };
@@ -245,7 +256,7 @@ function outlierRow(infl: LineInfluence, onLine: boolean, alpha: number, where: 
       ? `${cap(where(i))} lies far from the line (studentized residual ${num(t)}), further than chance explains even allowing for ${n} rows.`
       : `No point stands out: the largest studentized residual, ${num(t)} at ${where(i)}, is within what chance gives for ${n} rows.`;
     return {
-      key, label: LABELS[key], test, statistic: t, pValue: p, verdict: flagged ? 'flag' : 'ok', meaning, point: i,
+      key, label: LABELS[key], test, statistic: t, pValue: p, verdict: flagged ? 'flag' : 'ok', meaning, point: i, place: where(i),
       flag: flagged ? `outlier at ${where(i)}` : undefined, detail,
     };
   });
@@ -257,7 +268,7 @@ function influenceRow(infl: LineInfluence, onLine: boolean, where: (i: number) =
   const h = infl.maxLeverageIndex;
   if (infl.leverage[h] >= SETS_SLOPE_LEVERAGE) {
     return {
-      key, label: LABELS[key], test: 'Leverage (hat value)', statistic: infl.leverage[h], pValue: null, verdict: 'flag', point: h,
+      key, label: LABELS[key], test: 'Leverage (hat value)', statistic: infl.leverage[h], pValue: null, verdict: 'flag', point: h, place: where(h),
       meaning: `${cap(where(h))} sets the slope on its own: its x is so far from the others (leverage ${num(infl.leverage[h])}) that the line must pass through it, and its Cook's distance is undefined.`,
       flag: `one point sets the slope (${where(h)})`,
       detail: { leverage: infl.leverage[h] },
@@ -276,7 +287,7 @@ function influenceRow(infl: LineInfluence, onLine: boolean, where: (i: number) =
       ? `${cap(where(i))} moves the line a lot: its Cook's distance, ${num(d)}, exceeds ${num(cutoff)} (${ref}).`
       : `No single point moves the line much: the largest Cook's distance, ${num(d)} at ${where(i)}, is below ${num(cutoff)} (${ref}).`;
     return {
-      key, label: LABELS[key], test, statistic: d, pValue: null, verdict: flagged ? 'flag' : 'ok', meaning, point: i,
+      key, label: LABELS[key], test, statistic: d, pValue: null, verdict: flagged ? 'flag' : 'ok', meaning, point: i, place: where(i),
       flag: flagged ? `influential point at ${where(i)}` : undefined,
       detail: { cutoff, leverage: infl.leverage[i] },
     };
