@@ -1,2 +1,137 @@
-/** Cell functions: filled in by its module's work. */
-export {};
+/**
+ * Cell functions for the assumption checks of a correlation: the eight-row table (CHECKS), the raised flags in one
+ * cell (FLAGS) and the full report with advice (REPORT). Thin adapter: read cells, call the core
+ * (src/stats/checks), shape the answer. The check report is computed once per data and sheet position and shared
+ * with every other function (and the panel) through the shared pairs cache.
+ */
+import { recommendCoefficient, plainReading, coefficientSymbol } from '../stats/checks/advice';
+import { CheckReport } from '../stats/checks/check-report';
+import { runChecks } from '../stats/checks/run-checks';
+import { correlatePrepared } from '../stats/correlate';
+import { PreparedPairs } from '../stats/prepared';
+import { Method, METHODS } from '../stats/types';
+import { CellRange, guard, optAlpha, optLevel, optMethod, PairedColumns, requirePairs } from './cells';
+import { sharedPairs } from './shared-pairs';
+import { pointNaming } from './sheet-rows';
+
+/** The significance level of the checks inside REPORT (the same default as CHECKS and FLAGS). */
+const REPORT_CHECK_ALPHA = 0.05;
+
+interface Checked {
+  pairs: PairedColumns;
+  prepared: PreparedPairs;
+  report: CheckReport;
+}
+
+/** Reads the pairs and returns the (shared, memoised) check report for this data, alpha and sheet position. */
+export function checkedPairs(x: CellRange, y: CellRange, alpha: number, xAddress?: string | null): Checked {
+  const { pairs, prepared } = sharedPairs(x, y);
+  requirePairs(pairs, 3);
+  const naming = pointNaming(x, xAddress);
+  const index = pairs.index;
+  const report = prepared.memo(`checks|${alpha}|${naming.key}`, () =>
+    runChecks(prepared.x, prepared.y, { alpha, pointName: (i) => naming.name(index[i]), fit: prepared.fit }),
+  );
+  return { pairs, prepared, report };
+}
+
+/** The flags in a few words each, or a plain none; untestable checks are counted so "no flags" is not overread. */
+export function flagsText(report: CheckReport): string {
+  const untested = report.notTestable > 0 ? `${report.notTestable} check${report.notTestable === 1 ? '' : 's'} not testable` : '';
+  if (report.flags.length === 0) return untested ? `no flags (${untested})` : 'no flags';
+  return untested ? `${report.flags.join('; ')}; ${untested}` : report.flags.join('; ');
+}
+
+/** A number for a cell, or "" where there is none (a null in a returned array would show as 0). */
+function cell(v: number | null): number | string {
+  return v === null || !Number.isFinite(v) ? '' : v;
+}
+
+/**
+ * Checks the assumptions behind a correlation of x and y: normal shape of x, y and the scatter around the line,
+ * a straight-line pattern, even spread, outliers, influential points and dependence on row order.
+ * @customfunction CHECKS
+ * @param x First column (or row) of numbers.
+ * @param y Second column (or row) of numbers, the same size as x.
+ * @param [alpha] Significance level for raising a flag, between 0 and 1; default 0.05.
+ * @param invocation Supplied by Excel: where x is, so that points are named by their sheet row.
+ * @returns A table with a header row and eight rows: check, test used, statistic, p-value, verdict (ok, flag or not testable), what it means.
+ * @requiresParameterAddresses
+ */
+export function CHECKS(x: any[][], y: any[][], alpha?: number, invocation?: CustomFunctions.Invocation): any[][] {
+  return guard(() => {
+    const { report } = checkedPairs(x, y, optAlpha(alpha), invocation?.parameterAddresses?.[0]);
+    const table: (string | number)[][] = [['Check', 'Test used', 'Statistic', 'p-value', 'Verdict', 'What it means']];
+    for (const row of report.checks) {
+      table.push([row.label, row.test, cell(row.statistic), cell(row.pValue), row.verdict, row.meaning]);
+    }
+    return table;
+  });
+}
+
+/**
+ * The assumption checks that raised a flag, a few words each (e.g. "curved; outlier at row 12"), or "no flags".
+ * Meant to sit beside a row of results.
+ * @customfunction FLAGS
+ * @param x First column (or row) of numbers.
+ * @param y Second column (or row) of numbers, the same size as x.
+ * @param [alpha] Significance level for raising a flag, between 0 and 1; default 0.05.
+ * @param invocation Supplied by Excel: where x is, so that points are named by their sheet row.
+ * @returns One cell of text.
+ * @requiresParameterAddresses
+ */
+export function FLAGS(x: any[][], y: any[][], alpha?: number, invocation?: CustomFunctions.Invocation): any[][] {
+  return guard(() => [[flagsText(checkedPairs(x, y, optAlpha(alpha), invocation?.parameterAddresses?.[0]).report)]]);
+}
+
+const SYMBOL_NAMES: Record<Method, string> = { pearson: 'Pearson r', spearman: 'Spearman rho', kendall: 'Kendall tau-b' };
+
+/**
+ * A full report on the correlation of x and y: pairs used, the coefficient with its interval and p-value, r², the
+ * line, the rank coefficients alongside, the flags of the assumption checks, a recommended coefficient and a
+ * plain-language reading.
+ * @customfunction REPORT
+ * @param x First column (or row) of numbers.
+ * @param y Second column (or row) of numbers, the same size as x.
+ * @param [level] Confidence level of the interval, between 0 and 1; default 0.95 (95%).
+ * @param [method] "pearson" (default), "spearman" or "kendall".
+ * @param invocation Supplied by Excel: where x is, so that points are named by their sheet row.
+ * @returns A two-column table: what is reported, and its value.
+ * @requiresParameterAddresses
+ */
+export function REPORT(x: any[][], y: any[][], level?: number, method?: string, invocation?: CustomFunctions.Invocation): any[][] {
+  return guard(() => {
+    const lvl = optLevel(level);
+    const m = optMethod(method);
+    const { pairs, prepared, report } = checkedPairs(x, y, REPORT_CHECK_ALPHA, invocation?.parameterAddresses?.[0]);
+    const opts = (mm: Method) => ({ method: mm, tail: 'both' as const, level: lvl });
+    const result = correlatePrepared(prepared, opts(m));
+    const pearsonR = m === 'pearson' ? result.statistic : correlatePrepared(prepared, opts('pearson')).statistic;
+    const pct = `${Number((lvl * 100).toPrecision(4))}%`;
+    const sym = coefficientSymbol(result);
+    const noInterval = `needs at least ${m === 'kendall' ? 5 : 4} pairs`;
+    const rows: (string | number)[][] = [
+      ['Pairs used', pairs.x.length],
+      ['Pairs skipped (blank, text or TRUE/FALSE)', pairs.skipped],
+      ['Coefficient', result.name],
+      [sym, result.statistic],
+      [`${pct} interval, lower`, Number.isFinite(result.interval.lower) ? result.interval.lower : noInterval],
+      [`${pct} interval, upper`, Number.isFinite(result.interval.upper) ? result.interval.upper : noInterval],
+      [`p-value (two-sided, ${result.pMethod})`, result.pValue],
+      ['r² (Pearson: share of the variation in y the line accounts for)', pearsonR * pearsonR],
+      ['Slope of the line (change in y per unit of x)', report.line.slope],
+      ['Intercept of the line (y where x = 0)', report.line.intercept],
+    ];
+    for (const other of METHODS) {
+      if (other !== m) rows.push([`${SYMBOL_NAMES[other]} alongside`, correlatePrepared(prepared, opts(other)).statistic]);
+    }
+    const rec = recommendCoefficient(report, result);
+    rows.push(
+      ['Flags (assumption checks, alpha 0.05)', flagsText(report)],
+      ['Recommended coefficient', rec.name === 'none' ? 'none is reliable on these data' : rec.name],
+      ['Why', rec.reason],
+      ['Reading', plainReading(result, report, 1 - lvl)],
+    );
+    return rows;
+  });
+}
