@@ -1,0 +1,136 @@
+/**
+ * What each cell of each function's answer means, read from the functions' JSDoc (@returns) and the README's
+ * table, so that range properties can be checked: correlations in [-1, 1], p-values in [0, 1], intervals that
+ * contain their estimate, counts that are whole numbers no larger than the rows given.
+ *
+ * A function not listed here still gets the properties every answer must have (no raw exception, no NaN or
+ * Infinity, no null in a spilled array, rectangular arrays); add a row when a function lands to get the rest.
+ */
+import { callCell } from './registry';
+
+/** Returns the violations found in `value`, an answer of the function to `args` (empty when all hold). */
+export type RoleCheck = (value: unknown, args: unknown[]) => string[];
+
+const isNum = (v: unknown): v is number => typeof v === 'number';
+
+function inUnit(v: unknown, what: string): string[] {
+  return isNum(v) && v >= -1 && v <= 1 ? [] : [`${what} ${String(v)} is not a number in [-1, 1]`];
+}
+
+function probability(v: unknown, what = 'p-value'): string[] {
+  return isNum(v) && v >= 0 && v <= 1 ? [] : [`${what} ${String(v)} is not in [0, 1]`];
+}
+
+/** One row [lower, upper, ...]: both bounds in [-1, 1], ordered, containing the estimate when it is known. */
+function intervalRow(value: unknown, estimate: number | undefined): string[] {
+  if (!Array.isArray(value) || value.length !== 1 || !Array.isArray(value[0])) return [`expected one row, got ${JSON.stringify(value)}`];
+  const [lo, hi] = value[0] as unknown[];
+  const out = [...inUnit(lo, 'lower bound'), ...inUnit(hi, 'upper bound')];
+  if (out.length) return out;
+  if (!((lo as number) <= (hi as number))) out.push(`lower bound ${lo} is above upper bound ${hi}`);
+  if (estimate !== undefined && !((lo as number) <= estimate && estimate <= (hi as number))) {
+    out.push(`interval [${lo}, ${hi}] does not contain the estimate ${estimate}`);
+  }
+  return out;
+}
+
+/** The coefficient the same data and method give, for interval containment; undefined when COEF refuses. */
+function coefficientOf(x: unknown, y: unknown, method: unknown): number | undefined {
+  const out = callCell('COEF', [x, y, method]);
+  return out.kind === 'value' && isNum(out.value) ? out.value : undefined;
+}
+
+/** One row [estimate, lower, upper, p]: the estimate within `bound`, inside its interval, p in [0, 1]. */
+function estimateIntervalP(value: unknown, bound: number): string[] {
+  if (!Array.isArray(value) || value.length !== 1 || !Array.isArray(value[0]) || (value[0] as unknown[]).length !== 4) {
+    return [`expected one row of four cells, got ${JSON.stringify(value)}`];
+  }
+  const [est, lo, hi, p] = value[0] as unknown[];
+  const within = (v: unknown, what: string) => (isNum(v) && v >= -bound && v <= bound ? [] : [`${what} ${String(v)} is not in [${-bound}, ${bound}]`]);
+  const out = [...within(est, 'estimate'), ...within(lo, 'lower bound'), ...within(hi, 'upper bound'), ...probability(p)];
+  if (out.length === 0 && !((lo as number) <= (est as number) && (est as number) <= (hi as number))) {
+    out.push(`interval [${lo}, ${hi}] does not contain the estimate ${est}`);
+  }
+  return out;
+}
+
+/** The option word a call passed, as the functions read it (trimmed, lower case), or the default. */
+function word(v: unknown, fallback: string): string {
+  return v === null || v === undefined || v === '' ? fallback : String(v).trim().toLowerCase();
+}
+
+/** MATRIX: a square table (plus a header row and column), symmetric, each cell in the range of what it shows. */
+function matrixTable(value: unknown, args: unknown[]): string[] {
+  const show = word(args[2], 'coef');
+  const headers = args[3] === true;
+  if (!Array.isArray(value)) return ['MATRIX answered a scalar'];
+  const rows = value as unknown[][];
+  const body = (headers ? rows.slice(1) : rows).map((r) => (headers ? r.slice(1) : r));
+  const k = body.length;
+  const out: string[] = [];
+  if (body.some((r) => r.length !== k)) out.push(`table is not square (${k} rows, ${body[0]?.length} columns)`);
+  for (let i = 0; i < k && out.length < 3; i++) {
+    for (let j = 0; j < k; j++) {
+      const v = body[i][j];
+      if (v !== body[j]?.[i]) out.push(`not symmetric at [${i}][${j}]: ${String(v)} vs ${String(body[j]?.[i])}`);
+      if (show === 'coef') {
+        out.push(...inUnit(v, `coefficient [${i}][${j}]`));
+        if (i === j && v !== 1) out.push(`diagonal [${i}][${i}] is ${String(v)}, not 1`);
+      } else if (show === 'pairs') {
+        if (!(isNum(v) && Number.isInteger(v) && v >= 0)) out.push(`pair count [${i}][${j}] is ${String(v)}`);
+      } else if (i === j) {
+        if (v !== '') out.push(`p-value diagonal [${i}][${i}] is ${String(v)}, not empty`);
+      } else out.push(...probability(v, `p-value [${i}][${j}]`));
+    }
+  }
+  return out;
+}
+
+export const OUTPUT_ROLES: Record<string, RoleCheck> = {
+  // @returns The coefficient, between -1 and 1.
+  COEF: (v) => inUnit(v, 'coefficient'),
+  // @returns One row of two cells: lower bound, upper bound (args: x, y, level, method).
+  INTERVAL: (v, a) => {
+    const r = coefficientOf(a[0], a[1], a[3]);
+    const out = intervalRow(v, r);
+    if (r === undefined) out.push('INTERVAL answered where COEF on the same data refused');
+    return out;
+  },
+  // @returns The p-value, between 0 and 1.
+  PVALUE: (v) => probability(v),
+  // @returns The count of rows used: a whole number, at most the cells in x.
+  PAIRS: (v, a) => {
+    const cells = Array.isArray(a[0]) ? (a[0] as unknown[][]).reduce((s, row) => s + (Array.isArray(row) ? row.length : 0), 0) : 0;
+    return isNum(v) && Number.isInteger(v) && v >= 0 && v <= cells ? [] : [`pair count ${String(v)} is not a whole number in [0, ${cells}]`];
+  },
+  // @returns One row: lower bound, upper bound, p-value (args: r, n, level, tail, method).
+  REPORTED: (v, a) => {
+    const out = intervalRow(v, isNum(a[0]) ? a[0] : undefined);
+    const row = Array.isArray(v) && Array.isArray(v[0]) ? (v[0] as unknown[]) : [];
+    return [...out, ...probability(row[2])];
+  },
+  // @returns One row of four cells: difference of two correlations, lower and upper end of its interval, p-value.
+  DIFF_GROUPS: (v) => estimateIntervalP(v, 2),
+  DIFF_SHARED: (v) => estimateIntervalP(v, 2),
+  DIFF_SEPARATE: (v) => estimateIntervalP(v, 2),
+  DIFF_REPORTED: (v, a) => {
+    const out = estimateIntervalP(v, 2);
+    const row = Array.isArray(v) && Array.isArray(v[0]) ? (v[0] as unknown[]) : [];
+    if (isNum(a[0]) && isNum(a[2]) && isNum(row[0]) && Math.abs(row[0] - (a[0] - a[2])) > 1e-15) out.push(`difference ${row[0]} is not r1 - r2 = ${a[0] - a[2]}`);
+    return out;
+  },
+  // @returns One row of four cells: the partial correlation, lower and upper end of its interval, p-value.
+  PARTIAL: (v) => estimateIntervalP(v, 1),
+  // @returns A square table; the diagonal is 1 for "coef", the count for "pairs", empty for p-values.
+  MATRIX: matrixTable,
+  // @returns The power, between 0 and 1.
+  POWER: (v) => probability(v, 'power'),
+  // @returns The number of rows (pairs of values), a whole number.
+  SAMPLE_SIZE: (v) => (isNum(v) && Number.isInteger(v) && v >= 4 ? [] : [`sample size ${String(v)} is not a whole number of at least 4`]),
+  // @returns The smallest correlation detectable, between 0 and 1 (between -1 and 0 for tail "negative").
+  DETECTABLE: (v, a) => {
+    const negative = word(a[3], 'both') === 'negative';
+    const ok = isNum(v) && (negative ? v >= -1 && v <= 0 : v >= 0 && v <= 1);
+    return ok ? [] : [`detectable r ${String(v)} is outside ${negative ? '[-1, 0]' : '[0, 1]'}`];
+  },
+};

@@ -1,0 +1,82 @@
+/**
+ * The functions as Excel sees them: the metadata the build wrote (dist/functions.json) and the bundle
+ * (dist/functions.js) hosted in a bare context. Property tests iterate over this list, so a function that lands
+ * later is covered without touching the tests. Needs `npm run build` first.
+ */
+import * as fs from 'fs';
+import { BareHost, distFile, HostError, loadBundle } from '../../../helpers/bare-host';
+
+export interface ParamMeta {
+  name: string;
+  description?: string;
+  type?: string;
+  dimensionality?: 'scalar' | 'matrix';
+  optional?: boolean;
+  repeating?: boolean;
+}
+
+export interface FunctionMeta {
+  id: string;
+  name: string;
+  description?: string;
+  parameters: ParamMeta[];
+  result?: { type?: string; dimensionality?: 'scalar' | 'matrix' };
+  options?: Record<string, boolean | undefined>;
+}
+
+if (!fs.existsSync(distFile('functions.js')) || !fs.existsSync(distFile('functions.json'))) {
+  throw new Error('dist/functions.js is missing: run `npm run build` first (npm test does)');
+}
+
+export const host: BareHost = loadBundle();
+export const functionsMeta: FunctionMeta[] = (
+  JSON.parse(fs.readFileSync(distFile('functions.json'), 'utf8')) as { functions: FunctionMeta[] }
+).functions;
+
+export function metaOf(id: string): FunctionMeta | undefined {
+  return functionsMeta.find((f) => f.id === id);
+}
+
+export function isRegistered(id: string): boolean {
+  return host.fns.has(id);
+}
+
+/** The outcome of one call, sorted into what a cell would show. */
+export type Outcome =
+  | { kind: 'value'; value: unknown }
+  | { kind: 'host-error'; code: string; message: string }
+  | { kind: 'raw-exception'; error: unknown };
+
+/** Error codes a custom function may throw (the host's ErrorCode values). */
+export const HOST_ERROR_CODES = new Set(['#VALUE!', '#N/A', '#DIV/0!', '#NUM!', '#NULL!']);
+
+/** Calls a registered function as Excel would and says what came out; never throws. */
+export function callCell(id: string, args: unknown[]): Outcome {
+  const fn = host.fns.get(id);
+  if (!fn) throw new Error(`${id} is not registered by dist/functions.js`);
+  try {
+    return { kind: 'value', value: fn(...args) };
+  } catch (e) {
+    if (e instanceof host.HostError) {
+      const he = e as HostError;
+      return { kind: 'host-error', code: he.code, message: he.message };
+    }
+    return { kind: 'raw-exception', error: e };
+  }
+}
+
+/** The value of a call that must succeed; throws with the host message otherwise (for invariance tests). */
+export function valueOf(id: string, args: unknown[]): unknown {
+  const out = callCell(id, args);
+  if (out.kind === 'value') return out.value;
+  if (out.kind === 'host-error') throw new Error(`${id} answered ${out.code} "${out.message}"`);
+  throw out.error;
+}
+
+/** Describes an outcome in one line for failure messages. */
+export function describeOutcome(o: Outcome): string {
+  if (o.kind === 'value') return `value ${JSON.stringify(o.value)}`;
+  if (o.kind === 'host-error') return `${o.code} "${o.message}"`;
+  const e = o.error;
+  return `raw exception ${e instanceof Error ? `${e.name}: ${e.message}` : String(e)}`;
+}
