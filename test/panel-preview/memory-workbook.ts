@@ -1,0 +1,106 @@
+/**
+ * A small in-memory Workbook for previewing and measuring the panel outside Excel and the workbench: sheets of
+ * cell values, named tables with a header row, change notifications, and a record of the rows selected and the
+ * cells written.
+ */
+import { columnLetters, formatBlock, parseAddress } from '../../taskpane/address';
+import type { ColumnSource, RangeRead, TableInfo, Workbook } from '../../taskpane/workbook';
+
+export interface MemoryTable {
+  name: string;
+  sheet: string;
+  /** Header row (1-based) and first column (1-based); data rows run until the last row of the sheet. */
+  headerRow: number;
+  firstColumn: number;
+  columns: string[];
+}
+
+export class MemoryWorkbook implements Workbook {
+  readonly sheets = new Map<string, unknown[][]>();
+  readonly tables: MemoryTable[] = [];
+  selection = '';
+  readonly selectedRows: { sheet: string; row: number }[] = [];
+  readonly writes: { topLeft: string; cells: (string | number)[][] }[] = [];
+  private listeners = new Set<() => void>();
+
+  /** Sets one cell (1-based) and notifies watchers. */
+  set(sheet: string, row: number, column: number, value: unknown): void {
+    const grid = this.sheets.get(sheet);
+    if (!grid) throw new Error(`no sheet ${sheet}`);
+    while (grid.length < row) grid.push([]);
+    grid[row - 1][column - 1] = value;
+    for (const l of this.listeners) l();
+  }
+
+  private cell(sheet: string, row: number, column: number): unknown {
+    const v = this.sheets.get(sheet)?.[row - 1]?.[column - 1];
+    return v === undefined || v === null ? '' : v;
+  }
+
+  async getSelection(): Promise<string> {
+    return this.selection;
+  }
+
+  async listTables(): Promise<TableInfo[]> {
+    return this.tables.map((t) => ({ name: t.name, sheet: t.sheet, columns: t.columns.slice() }));
+  }
+
+  async readColumn(source: ColumnSource): Promise<RangeRead & { header: string }> {
+    if (source.kind === 'table') {
+      const t = this.tables.find((k) => k.name === source.table);
+      if (!t) throw new Error(`no table ${source.table}`);
+      const c = t.columns.indexOf(source.column);
+      if (c < 0) throw new Error(`no column ${source.column} in ${t.name}`);
+      const last = this.sheets.get(t.sheet)!.length;
+      const column = t.firstColumn + c;
+      const read = await this.readRange(formatBlock({ sheet: t.sheet, firstRow: t.headerRow + 1, lastRow: last, firstColumn: column, lastColumn: column }));
+      return { ...read, header: source.column };
+    }
+    const read = await this.readRange(source.address);
+    const first = read.values[0]?.[0];
+    return { ...read, header: typeof first === 'string' && first !== '' ? first : read.address };
+  }
+
+  async readRange(address: string): Promise<RangeRead> {
+    const b = parseAddress(address)?.[0];
+    if (!b) throw new Error(`bad address ${address}`);
+    const lastRow = Math.min(b.lastRow, Math.max(b.firstRow, this.sheets.get(b.sheet)?.length ?? 0));
+    const values: unknown[][] = [];
+    for (let r = b.firstRow; r <= lastRow; r++) {
+      const row: unknown[] = [];
+      for (let c = b.firstColumn; c <= b.lastColumn; c++) row.push(this.cell(b.sheet, r, c));
+      values.push(row);
+    }
+    return { address: formatBlock({ ...b, lastRow }), sheet: b.sheet, firstRow: b.firstRow, firstColumn: b.firstColumn, values };
+  }
+
+  async watch(_sources: ColumnSource[], onChange: () => void): Promise<() => void> {
+    this.listeners.add(onChange);
+    return () => this.listeners.delete(onChange);
+  }
+
+  async selectRow(sheet: string, row: number): Promise<void> {
+    this.selectedRows.push({ sheet, row });
+    this.selection = `${sheet}!${row}:${row}`;
+  }
+
+  async writeCells(topLeft: string, cells: (string | number)[][]): Promise<void> {
+    this.writes.push({ topLeft, cells });
+    const b = parseAddress(topLeft)![0];
+    cells.forEach((row, i) => row.forEach((v, j) => {
+      const grid = this.sheets.get(b.sheet)!;
+      while (grid.length < b.firstRow + i) grid.push([]);
+      grid[b.firstRow + i - 1][b.firstColumn + j - 1] = v;
+    }));
+  }
+
+  async addSheet(name: string, cells: (string | number)[][]): Promise<string> {
+    let unique = name;
+    for (let k = 2; this.sheets.has(unique); k++) unique = `${name} (${k})`;
+    this.sheets.set(unique, cells.map((r) => r.slice()));
+    return unique;
+  }
+}
+
+/** "B" for column 2, for building addresses in previews. */
+export const letter = columnLetters;
