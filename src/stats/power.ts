@@ -223,7 +223,7 @@ export function sampleSizeForCorrelation(rho: number, power: number, opts: Plann
 /**
  * The smallest true correlation that n rows detect with the target power, by the chosen method: a magnitude for
  * tails "both" and "positive", a negative value for tail "negative" (so that feeding it back into
- * correlationPower gives the target). Found by bisection on atanh(rho) to 1e-12.
+ * correlationPower gives the target). Found on atanh(rho) to 1e-12 by the Illinois method.
  * @throws StatsInputError when n is not a whole number in [4, 1e9], or power or alpha is outside (0, 1).
  * @example detectableCorrelation(84, 0.8, { alpha: 0.05, tail: 'both' }).rho // about 0.30
  */
@@ -238,16 +238,35 @@ export function detectableCorrelation(n: number, power: number, opts: PlanningOp
   if (p0 >= power) return done(0, p0);
   // Bracket in z = atanh(rho): power rises with |rho|; z = 20 is rho = 1 - 8e-18, i.e. 1 in double precision.
   let lo = 0;
+  let flo = p0 - power;
   let hi = 0.5;
-  while (pw(hi) < power) {
+  let fhi = pw(hi) - power;
+  while (fhi < 0) {
     lo = hi;
+    flo = fhi;
     hi *= 2;
     if (hi > 20) throw new StatsInputError('out-of-range', `no correlation below 1 reaches power ${power} with ${n} rows`);
+    fhi = pw(hi) - power;
   }
-  while (hi - lo > 1e-12) {
-    const mid = (lo + hi) / 2;
-    if (pw(mid) >= power) hi = mid;
-    else lo = mid;
+  // Illinois method (Dowell & Jarratt 1971, BIT 11:168-174): regula falsi that halves the stale end's value, so
+  // both ends close in superlinearly; about 8 evaluations instead of bisection's 40. Invariant f(lo) < 0 <= f(hi).
+  let stale = 0;
+  for (let i = 0; i < 200 && hi - lo > 1e-12; i++) {
+    let mid = (lo * fhi - hi * flo) / (fhi - flo);
+    if (!(mid > lo && mid < hi)) mid = (lo + hi) / 2;
+    const fm = pw(mid) - power;
+    if (fm >= 0) {
+      hi = mid;
+      fhi = fm;
+      if (stale === 1) flo /= 2;
+      stale = 1;
+    } else {
+      lo = mid;
+      flo = fm;
+      if (stale === -1) fhi /= 2;
+      stale = -1;
+    }
+    if (fm >= 0 && fm < 1e-13) break;
   }
   const rho = sign * Math.tanh(hi);
   return done(rho, pw(hi));
