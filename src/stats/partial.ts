@@ -1,4 +1,5 @@
 import { fisherInterval, pFromT, tFromR } from './fisher';
+import { powerOfTwoScale } from './comoments';
 import { clipUnit } from './pearson';
 import { euclideanNorm, orthonormalBasis, residualsOn, centred } from './residualize';
 import { Interval, StatsInputError, Tail } from './types';
@@ -63,9 +64,11 @@ export function partialCorrelation(
       `only ${n} complete rows: with ${k} control column${k === 1 ? '' : 's'} a partial correlation needs at least ${k + 4}`,
     );
   }
-  const basis = orthonormalBasis(controls, (i) => (k === 1 ? 'the control column' : `control column ${i + 1}`));
-  const ex = explainedCheck(x, basis, 'x');
-  const ey = explainedCheck(y, basis, 'y');
+  // Each column is divided by a power of two near its largest magnitude (exact, and r does not depend on scale),
+  // so values near 1e300 or 1e-300 neither overflow nor underflow in the sums below.
+  const basis = orthonormalBasis(controls.map(scaled), (i) => (k === 1 ? 'the control column' : `control column ${i + 1}`));
+  const ex = explainedCheck(scaled(x), basis, 'x');
+  const ey = explainedCheck(scaled(y), basis, 'y');
   let sxy = 0;
   for (let i = 0; i < n; i++) sxy += ex[i] * ey[i];
   const r = clipUnit(sxy / (euclideanNorm(ex) * euclideanNorm(ey)));
@@ -82,6 +85,11 @@ export function partialCorrelation(
     test: { name: 't', value: t, df },
     pMethod: 't test, df = n - 2 - k',
   };
+}
+
+function scaled(v: ArrayLike<number>): Float64Array {
+  const s = powerOfTwoScale(v);
+  return Float64Array.from(v, (a) => a / s);
 }
 
 /** Residuals of v on the controls, refusing a column that is constant or that the controls explain fully. */

@@ -45,7 +45,14 @@ describe('partial correlation (R residuals and psych::partial.r)', () => {
     const ref = R.partial.one;
     const [x, y, s] = completeData(R.data.north, ['tenure', 'performance', 'seniority']);
     const shifted = s.map((v) => v + 1e9);
-    expectRel(partialCorrelation(x, y, [shifted], { tail: 'both', level: 0.95 }).statistic, ref.r, 1e-7);
+    expectRel(partialCorrelation(x, y, [shifted], { tail: 'both', level: 0.95 }).statistic, ref.r, 1e-9);
+  });
+
+  test('huge and tiny magnitudes neither overflow nor underflow (scale invariance, R value on the original data)', () => {
+    const ref = R.partial.one;
+    const [x, y, s] = completeData(R.data.north, ['tenure', 'performance', 'seniority']);
+    const opts = { tail: 'both' as Tail, level: 0.95 };
+    expectRel(partialCorrelation(x.map((v) => v * 1e300), y.map((v) => v * 1e-300), [s.map((v) => v * 1e295)], opts).statistic, ref.r, 1e-9);
   });
 
   test('bad input', () => {
