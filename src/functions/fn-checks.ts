@@ -47,9 +47,10 @@ function cell(v: number | null): number | string {
   return v === null || !Number.isFinite(v) ? '' : v;
 }
 
+// The eight checks: normal shape of x, y and the residuals, a straight line, even spread, outliers, influential
+// points, dependence on row order (see runChecks). The JSDoc description stays on one line: it is the tooltip.
 /**
- * Checks the assumptions behind a correlation of x and y: normal shape of x, y and the scatter around the line,
- * a straight-line pattern, even spread, outliers, influential points and dependence on row order.
+ * Checks the assumptions behind the correlation of x and y, one row per check with its test, result and meaning.
  * @customfunction CHECKS
  * @param x First column (or row) of numbers.
  * @param y Second column (or row) of numbers, the same size as x.
@@ -69,9 +70,9 @@ export function CHECKS(x: any[][], y: any[][], alpha?: number, invocation?: Cust
   });
 }
 
+// Meant to sit beside a row of results; the same checks as CHECKS, shared through the cache.
 /**
  * The assumption checks that raised a flag, a few words each (e.g. "curved; outlier at row 12"), or "no flags".
- * Meant to sit beside a row of results.
  * @customfunction FLAGS
  * @param x First column (or row) of numbers.
  * @param y Second column (or row) of numbers, the same size as x.
@@ -86,10 +87,10 @@ export function FLAGS(x: any[][], y: any[][], alpha?: number, invocation?: Custo
 
 const SYMBOL_NAMES: Record<Method, string> = { pearson: 'Pearson r', spearman: 'Spearman rho', kendall: 'Kendall tau-b' };
 
+// Rows: pairs used and skipped, the coefficient with its interval and p-value, r², the line, the other coefficients
+// alongside, the flags of the checks (alpha 0.05), a recommended coefficient with its reason, a plain reading.
 /**
- * A full report on the correlation of x and y: pairs used, the coefficient with its interval and p-value, r², the
- * line, the rank coefficients alongside, the flags of the assumption checks, a recommended coefficient and a
- * plain-language reading.
+ * A full report on the correlation of x and y: the numbers, the assumption checks, a recommendation and a reading.
  * @customfunction REPORT
  * @param x First column (or row) of numbers.
  * @param y Second column (or row) of numbers, the same size as x.
