@@ -69,7 +69,8 @@ export class Calculator {
   private next(dirty: Set<FormulaCell>): FormulaCell {
     const list = [...dirty];
     for (const f of list) {
-      const waits = list.some((g) => g !== f && f.reads.some((r) => intersects(r, this.model.outputArea(g))));
+      const reads = this.model.readsOf(f);
+      const waits = list.some((g) => g !== f && reads.some((r) => intersects(r, this.model.outputArea(g))));
       if (!waits) return f;
     }
     return list[0];

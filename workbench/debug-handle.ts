@@ -9,6 +9,8 @@ export interface WorkbenchDebugHandle {
   busy(): boolean;
   /** The value a cell holds, e.g. value("North!N2"): numbers at full precision, errors as { error, message }. */
   value(address: string): unknown;
+  /** What was typed into a cell: a formula's text, or the value as text ("" when empty). */
+  entry(address: string): string;
   /** The selected range, with its sheet. */
   selection(): string;
 }

@@ -44,6 +44,8 @@ export const WORKSHOP_HEADERS = [
   'Revenue per week',
 ];
 
+const clamp = (v: number, low: number, high: number): number => Math.min(high, Math.max(low, v));
+
 interface RegionRecipe {
   prefix: string;
   count: number;
@@ -64,20 +66,20 @@ function workshops(r: RegionRecipe): TypedCell[][] {
   const rows: TypedCell[][] = [WORKSHOP_HEADERS.slice()];
   for (let i = 1; i <= r.count; i++) {
     const sheetRow = i + 1;
-    const mechanics = roundTo(rng.uniform(2, 9), 1);
+    const mechanics = roundTo(clamp(rng.normal(5.5, 1.7), 1.5, 9.5), 1);
     const repairs = Math.round(r.repairsPerMechanic * mechanics + r.repairsBase + rng.normal(0, r.repairsNoise));
 
     // Margin peaks at an 18% parts discount and falls either side: a curve a straight line misreads.
-    const discount = roundTo(rng.uniform(0, 30), 1);
+    const discount = roundTo(clamp(rng.normal(15, 7), 0, 30), 1);
     const margin = roundTo(30 - 0.06 * (discount - 18) ** 2 + rng.normal(0, 1.0), 1);
 
-    const area = 5 * Math.round(rng.uniform(60, 240) / 5);
+    const area = 5 * Math.round(clamp(rng.normal(150, 40), 60, 240) / 5);
     let rent = roundTo(14 * area + 300 + rng.normal(0, 220), -1);
     // One rent was keyed wrong (about three times its real value): an outlier at an ordinary floor area.
     if (sheetRow === r.rentSlipRow) rent = roundTo(rent * 3, -1);
 
     // E-bike share is low everywhere but at the flagship; the ticket does not follow the share elsewhere.
-    let ebike = roundTo(rng.uniform(1, 12), 1);
+    let ebike = roundTo(clamp(rng.normal(6.5, 2.2), 1, 12), 1);
     let ticket = roundTo(58 + rng.normal(0, 7), 2);
     if (sheetRow === r.flagshipRow) {
       ebike = 64;
@@ -85,8 +87,8 @@ function workshops(r: RegionRecipe): TypedCell[][] {
     }
 
     // Revenue grows with households, and so does its spread: a fan.
-    const households = roundTo(rng.uniform(5, 60), 1);
-    const revenue = roundTo(180 * households + rng.normal(0, 42 * households), 0);
+    const households = roundTo(clamp(rng.normal(30, 11), 5, 60), 1);
+    const revenue = roundTo(180 * households + rng.normal(0, 60 * households), 0);
 
     rows.push([
       `${r.prefix}${String(i).padStart(2, '0')}`,
@@ -149,23 +151,36 @@ function northFormulas(lastRow: number): DemoSheet['extras'] {
   ];
 }
 
-/** A sheet of formulas across sheets, to show sheet-qualified ranges and spilled results. */
-function formulaSheet(northLast: number, southLast: number): DemoSheet {
+/**
+ * A sheet of live formulas across the other sheets: each demo pair with its r and the flags its checks raise, the
+ * North–South comparison, a reported correlation checked, and a sample size. Shows sheet-qualified and quoted
+ * ranges, omitted arguments and spilled results.
+ */
+function formulaSheet(northLast: number, southLast: number, monthsLast: number): DemoSheet {
   const n = (c: string) => `North!${c}2:${c}${northLast}`;
   const s = (c: string) => `South!${c}2:${c}${southLast}`;
+  const m = (c: string) => `'Monthly figures'!${c}2:${c}${monthsLast}`;
+  const pair = (label: string, x: string, y: string): TypedCell[] => [label, `=COVARY.COEF(${x}, ${y})`, `=COVARY.FLAGS(${x}, ${y})`];
   const cells: TypedCell[][] = [
-    ['What', 'Formula result'],
-    ['r, mechanics vs repairs, North', `=COVARY.COEF(${n('B')}, ${n('C')})`],
-    ['r, mechanics vs repairs, South', `=COVARY.COEF(${s('B')}, ${s('C')})`],
-    ['95% interval, South', `=COVARY.INTERVAL(${s('B')}, ${s('C')})`],
-    ['Kendall tau, discount vs margin, North', `=COVARY.COEF(${n('D')}, ${n('E')}, "kendall")`],
-    ['r, floor area vs rent, North', `=COVARY.COEF(${n('F')}, ${n('G')})`],
-    ['Spearman rho, floor area vs rent, North', `=COVARY.COEF(${n('F')}, ${n('G')}, "spearman")`],
-    ['r, e-bike share vs ticket, North', `=COVARY.COEF(${n('H')}, ${n('I')})`],
-    ['Pairs used, households vs revenue, North', `=COVARY.PAIRS(${n('J')}, ${n('K')})`],
-    ["r, ad spend vs repairs booked (monthly)", `=COVARY.COEF('Monthly figures'!B2:B49, 'Monthly figures'!C2:C49)`],
-    ['A reported r of 0.42 from 30 pairs: interval and p', '=COVARY.REPORTED(0.42, 30)'],
-    ['The same at 90% (level given, tail omitted)', '=COVARY.REPORTED(0.42, 30, 0.9, , "pearson")'],
+    ['Pair (sheet): what it shows', 'r', 'Flags from the checks'],
+    pair('Mechanics vs repairs (North): clean', n('B'), n('C')),
+    pair('Mechanics vs repairs (South): clean, weaker', s('B'), s('C')),
+    pair('Parts discount vs margin (North): curved', n('D'), n('E')),
+    pair('Floor area vs rent (North): one rent keyed wrong', n('F'), n('G')),
+    pair('E-bike share vs ticket (North): one flagship', n('H'), n('I')),
+    pair('Households vs revenue (North): spread widens', n('J'), n('K')),
+    pair('Ad spend vs repairs booked (Monthly figures): both trend', m('B'), m('C')),
+    [],
+    ['North minus South, mechanics vs repairs', 'difference', 'lower', 'upper', 'p-value'],
+    ['', `=COVARY.DIFF_GROUPS(${n('B')}, ${n('C')}, ${s('B')}, ${s('C')})`],
+    [],
+    ['A reported r of 0.42 from 30 pairs', 'lower', 'upper', 'p-value'],
+    ['95% (defaults)', '=COVARY.REPORTED(0.42, 30)'],
+    ['90% (level given, tail omitted)', '=COVARY.REPORTED(0.42, 30, 0.9, , "pearson")'],
+    [],
+    ['Pairs needed to find r = 0.3 with 80% power', '=COVARY.SAMPLE_SIZE(0.3, 0.8)'],
+    ['Spearman rho, floor area vs rent (North)', `=COVARY.COEF(${n('F')}, ${n('G')}, "spearman")`],
+    ['Kendall tau-b, discount vs margin (North)', `=COVARY.COEF(${n('D')}, ${n('E')}, "kendall")`],
   ];
   return { name: 'Live formulas', cells };
 }
@@ -173,11 +188,11 @@ function formulaSheet(northLast: number, southLast: number): DemoSheet {
 /** The demo workbook, sheet by sheet. */
 export function demoWorkbook(): DemoSheet[] {
   const north = workshops({
-    prefix: 'N', count: 48, seed: 20260301, repairsPerMechanic: 9.5, repairsBase: 6, repairsNoise: 9,
+    prefix: 'N', count: 48, seed: 20260441, repairsPerMechanic: 9.5, repairsBase: 6, repairsNoise: 9,
     rentSlipRow: 28, flagshipRow: 41, blankRevenueRow: 13,
   });
   const south = workshops({
-    prefix: 'S', count: 40, seed: 20260302, repairsPerMechanic: 7, repairsBase: 15, repairsNoise: 13,
+    prefix: 'S', count: 40, seed: 20260442, repairsPerMechanic: 7, repairsBase: 15, repairsNoise: 13,
     rentSlipRow: 17, flagshipRow: 33, blankRevenueRow: 9,
   });
   const monthly = months(20260303, 48);
@@ -185,6 +200,6 @@ export function demoWorkbook(): DemoSheet[] {
     { name: 'North', cells: north, table: { name: 'NorthWorkshops', columns: WORKSHOP_HEADERS.length, rows: north.length }, extras: northFormulas(north.length) },
     { name: 'South', cells: south, table: { name: 'SouthWorkshops', columns: WORKSHOP_HEADERS.length, rows: south.length } },
     { name: 'Monthly figures', cells: monthly, table: { name: 'MonthlyFigures', columns: MONTH_HEADERS.length, rows: monthly.length } },
-    formulaSheet(north.length, south.length),
+    formulaSheet(north.length, south.length, monthly.length),
   ];
 }

@@ -17,6 +17,8 @@ export interface CellSource {
   /** The cells of an area as rows; an ErrorValue (#REF!) when the sheet does not exist. Whole columns are clipped
    *  to the sheet's used rows. */
   readArea(area: Area): CellValue[][] | ErrorValue;
+  /** The cells a table column reference covers now (tables grow), or #REF! when the table or column is gone. */
+  tableColumnArea(table: string, column: string, part: 'data' | 'headers' | 'all'): Area | ErrorValue;
 }
 
 /** The cell a formula sits in (for invocation.address). */
@@ -55,8 +57,11 @@ export class FormulaEvaluator {
         return single(0);
       case 'array':
         return node.rows.map((r) => [...r]);
-      case 'ref': {
-        const rows = this.cells.readArea(node.area);
+      case 'ref':
+      case 'tableref': {
+        const area = node.kind === 'ref' ? node.area : this.cells.tableColumnArea(node.table, node.column, node.part);
+        if (isErrorValue(area)) return single(area);
+        const rows = this.cells.readArea(area);
         return isErrorValue(rows) ? single(rows) : rows.map((r) => r.map((v) => (v === null ? 0 : v)));
       }
       case 'call':
@@ -67,10 +72,12 @@ export class FormulaEvaluator {
   private async argument(node: FormulaNode, site: FormulaSite): Promise<ArgumentValue | ErrorValue> {
     if (node.kind === 'omitted') return { rows: [[null]], address: '', literal: true, omitted: true };
     if (node.kind === 'literal') return { rows: [[node.value]], address: '', literal: true, omitted: false };
-    if (node.kind === 'ref') {
-      const rows = this.cells.readArea(node.area);
+    if (node.kind === 'ref' || node.kind === 'tableref') {
+      const area = node.kind === 'ref' ? node.area : this.cells.tableColumnArea(node.table, node.column, node.part);
+      if (isErrorValue(area)) return area;
+      const rows = this.cells.readArea(area);
       if (isErrorValue(rows)) return rows;
-      const shown = { ...node.area, bottom: node.area.top + rows.length - 1 };
+      const shown = { ...area, bottom: area.top + rows.length - 1 };
       return { rows, address: formatArea(shown), literal: false, omitted: false };
     }
     const rows = await this.evaluate(node, site);

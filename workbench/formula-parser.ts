@@ -1,7 +1,9 @@
 /**
  * A small parser for the formulas the workbench evaluates: function calls such as
  * `=COVARY.COEF(B2:B49, 'Other sheet'!C2:C49, "spearman")`, with ranges, whole columns, numbers, text in double
- * quotes, TRUE/FALSE, omitted arguments (`=F(A1:A9, , 0.9)`), array constants (`{1,2;3,4}`) and nested calls.
+ * quotes, TRUE/FALSE, omitted arguments (`=F(A1:A9, , 0.9)`), array constants (`{1,2;3,4}`), nested calls, and
+ * table columns by structured reference (`Branches[Visits]`, `Branches[[Floor area m²]]`,
+ * `Branches[[#Data],[Visits]]`), which follow the table as it grows.
  * Operators (+, *, &) are not part of it: the workbench evaluates the add-in's functions, not a spreadsheet's.
  */
 import { Area, parseArea } from './a1';
@@ -11,8 +13,12 @@ export type FormulaNode =
   | { kind: 'literal'; value: Scalar }
   | { kind: 'omitted' }
   | { kind: 'ref'; text: string; area: Area }
+  | { kind: 'tableref'; text: string; table: string; column: string; part: TablePart }
   | { kind: 'array'; rows: Scalar[][] }
   | { kind: 'call'; name: string; args: FormulaNode[] };
+
+/** Which rows of a table column a structured reference means: the data (default), the header, or both. */
+export type TablePart = 'data' | 'headers' | 'all';
 
 export class FormulaSyntaxError extends Error {
   constructor(message: string) {
@@ -31,10 +37,10 @@ export function parseFormula(formula: string, homeSheet: string): FormulaNode {
   return p.parseWhole();
 }
 
-/** Every range a formula reads (for recalculation when one of them changes). */
-export function referencedAreas(node: FormulaNode): Area[] {
-  if (node.kind === 'ref') return [node.area];
-  if (node.kind === 'call') return node.args.flatMap(referencedAreas);
+/** Every reference a formula holds (ranges and table columns), for recalculation when one of them changes. */
+export function references(node: FormulaNode): Extract<FormulaNode, { kind: 'ref' | 'tableref' }>[] {
+  if (node.kind === 'ref' || node.kind === 'tableref') return [node];
+  if (node.kind === 'call') return node.args.flatMap(references);
   return [];
 }
 
@@ -79,6 +85,7 @@ class Parser {
       const next = this.peek();
       if (next === '(') return this.readCall(word);
       if (next === '!') return this.readReference(word);
+      if (next === '[') return this.readTableReference(word, start);
       const upper = word.toUpperCase();
       if ((upper === 'TRUE' || upper === 'FALSE') && next !== ':') return { kind: 'literal', value: upper === 'TRUE' };
       this.pos = start;
@@ -159,6 +166,63 @@ class Parser {
     if (sheet !== undefined) area.sheet = sheet;
     this.pos += m[0].length;
     return { kind: 'ref', text: cells, area };
+  }
+
+  /** Reads "[Column]", "[[Column]]" or "[[#Data],[Column]]" after a table name; ' escapes [ ] # and '. */
+  private readTableReference(table: string, start: number): FormulaNode {
+    const specifiers: string[] = [];
+    const readBracket = (): string => {
+      this.pos++; // [
+      let out = '';
+      while (this.pos < this.text.length) {
+        const c = this.text[this.pos];
+        if (c === "'") {
+          out += this.text[this.pos + 1] ?? '';
+          this.pos += 2;
+          continue;
+        }
+        if (c === ']') {
+          this.pos++;
+          return out;
+        }
+        if (c === '[') this.fail('unexpected "[" inside a column name (write \'[ for a literal bracket)');
+        out += c;
+        this.pos++;
+      }
+      return this.fail(`${table}[ is missing its closing "]"`);
+    };
+    if (this.text[this.pos + 1] === '[') {
+      this.pos++; // outer [
+      for (;;) {
+        this.skipSpace();
+        if (this.peek() !== '[') this.fail('expected "[" in the table reference');
+        specifiers.push(readBracket());
+        this.skipSpace();
+        if (this.peek() === ',') {
+          this.pos++;
+          continue;
+        }
+        if (this.peek() === ']') {
+          this.pos++;
+          break;
+        }
+        this.fail('expected "," or "]" in the table reference');
+      }
+    } else {
+      specifiers.push(readBracket());
+    }
+    let part: TablePart = 'data';
+    const columns: string[] = [];
+    for (const spec of specifiers) {
+      const lower = spec.trim().toLowerCase();
+      if (lower === '#data') part = 'data';
+      else if (lower === '#headers') part = 'headers';
+      else if (lower === '#all') part = 'all';
+      else if (lower.startsWith('#')) this.fail(`${spec} is not supported in a table reference`);
+      else columns.push(spec);
+    }
+    if (columns.length !== 1) this.fail('a table reference needs exactly one column, e.g. Table1[Visits]');
+    return { kind: 'tableref', text: this.text.slice(start, this.pos), table, column: columns[0], part };
   }
 
   private readCall(name: string): FormulaNode {

@@ -24,9 +24,11 @@ const MAX_DRAWN_ROWS = 5000;
 /** Column widths in pixels: the row-number column, and the range a fitted column stays within. */
 const ROW_HEAD_WIDTH = 44;
 const MIN_COLUMN_WIDTH = 64;
-const MAX_COLUMN_WIDTH = 260;
+const MAX_COLUMN_WIDTH = 320;
 /** Average width of a character of the grid's 13px font, for fitting columns to their text. */
 const CHAR_WIDTH = 7.1;
+/** Text longer than this many characters gets a tooltip with all of it. */
+const LONG_TEXT = 30;
 /** Rows looked at when fitting a column's width. */
 const FIT_SCAN_ROWS = 200;
 
@@ -249,9 +251,15 @@ export class GridView {
     const last = Math.min(usedRows, FIT_SCAN_ROWS);
     for (let r = 1; r <= last; r++) {
       const text = displayValue(this.model.value(this.sheetName, r, column)).text;
-      if (text.length > longest) longest = text.length;
+      // Header rows of tables are bold: their characters are wider.
+      const width = text.length * (this.isTableHeader(r, column) ? CHAR_WIDTH * 1.12 : CHAR_WIDTH);
+      if (width > longest) longest = width;
     }
-    return Math.round(Math.min(MAX_COLUMN_WIDTH, Math.max(MIN_COLUMN_WIDTH, longest * CHAR_WIDTH + 16)));
+    return Math.round(Math.min(MAX_COLUMN_WIDTH, Math.max(MIN_COLUMN_WIDTH, longest + 18)));
+  }
+
+  private isTableHeader(row: number, column: number): boolean {
+    return this.tablesOnSheet().some((t) => t.top === row && column >= t.left && column <= t.right);
   }
 
   private renderTabs(): void {
@@ -271,7 +279,9 @@ export class GridView {
     const shown = displayValue(this.model.value(this.sheetName, row, column));
     td.textContent = shown.text;
     td.dataset.kind = shown.kind;
-    if (shown.title) td.title = shown.title;
+    // Long text may be cut by the column width: its tooltip holds all of it.
+    const title = shown.title ?? (shown.kind === 'text' && shown.text.length > LONG_TEXT ? shown.text : undefined);
+    if (title) td.title = title;
     else td.removeAttribute('title');
   }
 

@@ -6,7 +6,6 @@
 import type { ColumnSource, RangeRead, TableInfo, Workbook } from '../taskpane/workbook';
 import { Area, formatArea, intersects, parseArea } from './a1';
 import { CellValue, isErrorValue } from './cell-values';
-import { displayValue } from './cell-format';
 import type { GridView } from './grid-view';
 import type { TypedCell, WorkbookEditor } from './workbook-editor';
 import type { TableBlock, WorkbookModel } from './workbook-model';
@@ -91,25 +90,16 @@ export class GridWorkbook implements Workbook {
     return { address: formatArea(area), sheet: area.sheet, firstRow: area.top, firstColumn: area.left, values };
   }
 
-  /** Header texts of a table, as shown (a blank header reads "Column" + its position, as Excel names it). */
   private headers(t: TableBlock): string[] {
-    const out: string[] = [];
-    for (let c = t.left; c <= t.right; c++) {
-      const text = displayValue(this.model.value(t.sheet, t.top, c)).text;
-      out.push(text === '' ? `Column${c - t.left + 1}` : text);
-    }
-    return out;
+    return this.model.tableHeaders(t);
   }
 
   private tableColumn(tableName: string, column: string): { table: TableBlock; area: Area } {
     const table = this.model.table(tableName);
     if (!table) throw new Error(`there is no table named ${tableName}`);
-    const headers = this.headers(table);
-    let index = headers.indexOf(column);
-    if (index < 0) index = headers.findIndex((h) => h.toLowerCase() === column.toLowerCase());
-    if (index < 0) throw new Error(`table ${tableName} has no column "${column}"`);
-    const c = table.left + index;
-    return { table, area: { sheet: table.sheet, top: table.top + 1, bottom: Math.max(table.top + 1, table.bottom), left: c, right: c } };
+    const area = this.model.tableColumnArea(table.name, column, 'data');
+    if (isErrorValue(area)) throw new Error(area.message ?? `table ${tableName} has no column "${column}"`);
+    return { table, area };
   }
 
   private sourceArea(s: ColumnSource): Area | null {

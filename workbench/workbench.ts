@@ -54,6 +54,10 @@ function start(): void {
       const area = parseArea(address, view.activeSheet);
       return area ? model.value(area.sheet, area.top, area.left) : undefined;
     },
+    entry: (address: string) => {
+      const area = parseArea(address, view.activeSheet);
+      return area ? model.entryText(area.sheet, area.top, area.left) : '';
+    },
     selection: () => formatArea(view.selectionArea()),
   };
   window.covaryWorkbench = handle;

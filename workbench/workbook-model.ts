@@ -4,9 +4,10 @@
  * that grow when a row is typed just below them, as Excel tables do. Listeners hear which areas changed.
  */
 import { Area, intersects } from './a1';
-import { CellValue, errorValue, readEntry, sameValue, Scalar } from './cell-values';
+import { CellValue, ErrorValue, errorValue, isErrorValue, readEntry, sameValue, Scalar } from './cell-values';
+import { displayValue } from './cell-format';
 import type { CellSource, FormulaResult } from './formula-evaluator';
-import { FormulaNode, FormulaSyntaxError, parseFormula, referencedAreas } from './formula-parser';
+import { FormulaNode, FormulaSyntaxError, parseFormula, references } from './formula-parser';
 
 /** A formula typed into a cell, its parse, what it reads, and its latest result (undefined while calculating). */
 export interface FormulaCell {
@@ -16,7 +17,8 @@ export interface FormulaCell {
   text: string;
   node?: FormulaNode;
   syntaxError?: string;
-  reads: Area[];
+  /** The ranges and table columns it reads (table columns are resolved when asked: tables grow). */
+  refs: ReturnType<typeof references>;
   result?: FormulaResult;
 }
 
@@ -100,10 +102,10 @@ export class WorkbookModel implements CellSource {
     s.values.delete(key);
     let formula: FormulaCell | undefined;
     if (entry.kind === 'formula') {
-      formula = { sheet: s.name, row, column, text: entry.text, reads: [] };
+      formula = { sheet: s.name, row, column, text: entry.text, refs: [] };
       try {
         formula.node = parseFormula(entry.text, s.name);
-        formula.reads = referencedAreas(formula.node);
+        formula.refs = references(formula.node);
       } catch (e) {
         formula.syntaxError = e instanceof FormulaSyntaxError ? e.message : String(e);
         formula.result = [[errorValue('#NAME?', `this formula could not be read: ${formula.syntaxError}`)]];
@@ -260,8 +262,47 @@ export class WorkbookModel implements CellSource {
     return changed;
   }
 
+  /** The areas a formula reads now. */
+  readsOf(f: FormulaCell): Area[] {
+    const out: Area[] = [];
+    for (const r of f.refs) {
+      if (r.kind === 'ref') out.push(r.area);
+      else {
+        const a = this.tableColumnArea(r.table, r.column, r.part);
+        // A reference to a missing table or column depends on every table's header row (it may appear there).
+        if (isErrorValue(a)) out.push(...this.tables.map((t) => ({ sheet: t.sheet, top: t.top, bottom: t.top, left: t.left, right: t.right })));
+        else out.push(a);
+      }
+    }
+    return out;
+  }
+
   /** Formulas that read any of the areas. */
   formulasReading(areas: Area[]): FormulaCell[] {
-    return this.allFormulas().filter((f) => f.reads.some((r) => areas.some((a) => intersects(r, a))));
+    return this.allFormulas().filter((f) => this.readsOf(f).some((r) => areas.some((a) => intersects(r, a))));
+  }
+
+  /** Header texts of a table as shown; a blank header reads "Column" + its position, as Excel names it. */
+  tableHeaders(t: TableBlock): string[] {
+    const out: string[] = [];
+    for (let c = t.left; c <= t.right; c++) {
+      const text = displayValue(this.value(t.sheet, t.top, c)).text;
+      out.push(text === '' ? `Column${c - t.left + 1}` : text);
+    }
+    return out;
+  }
+
+  /** The cells of one table column: its data rows, its header, or both. */
+  tableColumnArea(tableName: string, column: string, part: 'data' | 'headers' | 'all' = 'data'): Area | ErrorValue {
+    const t = this.table(tableName);
+    if (!t) return errorValue('#REF!', `there is no table named ${tableName}`);
+    const headers = this.tableHeaders(t);
+    let index = headers.indexOf(column);
+    if (index < 0) index = headers.findIndex((h) => h.toLowerCase() === column.toLowerCase());
+    if (index < 0) return errorValue('#REF!', `table ${t.name} has no column "${column}"`);
+    const c = t.left + index;
+    const top = part === 'data' ? t.top + 1 : t.top;
+    const bottom = part === 'headers' ? t.top : Math.max(t.top + 1, t.bottom);
+    return { sheet: t.sheet, top, bottom, left: c, right: c };
   }
 }

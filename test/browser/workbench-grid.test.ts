@@ -134,29 +134,51 @@ describe('COVARY formulas hosted from dist/functions.js', () => {
 
   test('sheet-qualified and quoted ranges, omitted arguments and three-cell spills work', async () => {
     await showSheet(page(), 'Live formulas');
-    await expect(cellValue(page(), "'Live formulas'!B10")).resolves.toEqual(expect.any(Number));
-    for (const address of ['B11', 'C11', 'D11', 'B12', 'C12', 'D12']) {
+    await expect(cellValue(page(), "'Live formulas'!B8")).resolves.toEqual(expect.any(Number));
+    for (const address of ['B14', 'C14', 'D14', 'B15', 'C15', 'D15']) {
       await expect(cellValue(page(), `'Live formulas'!${address}`)).resolves.toEqual(expect.any(Number));
     }
     // A 90% interval is narrower than a 95% one for the same reported r and n.
-    const width95 = ((await cellValue(page(), "'Live formulas'!C11")) as number) - ((await cellValue(page(), "'Live formulas'!B11")) as number);
-    const width90 = ((await cellValue(page(), "'Live formulas'!C12")) as number) - ((await cellValue(page(), "'Live formulas'!B12")) as number);
+    const width95 = ((await cellValue(page(), "'Live formulas'!C14")) as number) - ((await cellValue(page(), "'Live formulas'!B14")) as number);
+    const width90 = ((await cellValue(page(), "'Live formulas'!C15")) as number) - ((await cellValue(page(), "'Live formulas'!B15")) as number);
     expect(width90).toBeLessThan(width95);
+    // DIFF_GROUPS spills four cells; its difference is the two COEF cells' difference, computed another way.
+    const north = (await cellValue(page(), "'Live formulas'!B2")) as number;
+    const south = (await cellValue(page(), "'Live formulas'!B3")) as number;
+    const diff = (await cellValue(page(), "'Live formulas'!B11")) as number;
+    expect(Math.abs(diff - (north - south))).toBeLessThanOrEqual(1e-9 * Math.abs(north - south));
+    expect(await cellValue(page(), "'Live formulas'!C11")).toBeLessThan(diff);
+    expect(await cellValue(page(), "'Live formulas'!D11")).toBeGreaterThan(diff);
     await screenshot(page(), 'workbench-live-formulas');
   });
 
   test('a function error shows its code with the message as the tooltip', async () => {
-    await typeInto(page(), 'Live formulas', 'B15', '=COVARY.COEF({1,2,3}, {5,5,5})');
-    await expect(cell(page(), 'B15').textContent()).resolves.toBe('#VALUE!');
-    await expect(cell(page(), 'B15').getAttribute('title')).resolves.toMatch(/constant/);
-    await typeInto(page(), 'Live formulas', 'B16', '=COVARY.NOSUCH(1)');
-    await expect(cell(page(), 'B16').textContent()).resolves.toBe('#NAME?');
-    await typeInto(page(), 'Live formulas', 'B17', '=COVARY.COEF(Nowhere!A1:A3, B1:B3)');
-    await expect(cell(page(), 'B17').textContent()).resolves.toBe('#REF!');
+    await typeInto(page(), 'Live formulas', 'B25', '=COVARY.COEF({1,2,3}, {5,5,5})');
+    await expect(cell(page(), 'B25').textContent()).resolves.toBe('#VALUE!');
+    await expect(cell(page(), 'B25').getAttribute('title')).resolves.toMatch(/constant/);
+    await typeInto(page(), 'Live formulas', 'B26', '=COVARY.NOSUCH(1)');
+    await expect(cell(page(), 'B26').textContent()).resolves.toBe('#NAME?');
+    await typeInto(page(), 'Live formulas', 'B27', '=COVARY.COEF(Nowhere!A1:A3, B1:B3)');
+    await expect(cell(page(), 'B27').textContent()).resolves.toBe('#REF!');
     // An error in an input answers the formula without a call, as in Excel.
-    await typeInto(page(), 'Live formulas', 'B18', '=COVARY.COEF(B15:B17, B2:B4)');
-    await expect(cell(page(), 'B18').textContent()).resolves.toBe('#VALUE!');
+    await typeInto(page(), 'Live formulas', 'B28', '=COVARY.COEF(B25:B27, B2:B4)');
+    await expect(cell(page(), 'B28').textContent()).resolves.toBe('#VALUE!');
     await screenshot(page(), 'workbench-errors');
+  });
+  test('table columns by structured reference follow the table as it grows', async () => {
+    const cols = 'NorthWorkshops[[Mechanics (FTE)]], NorthWorkshops[[Repairs per week]]';
+    await typeInto(page(), 'Live formulas', 'B30', `=COVARY.PAIRS(${cols})`);
+    await typeInto(page(), 'Live formulas', 'B31', `=COVARY.COEF(${cols})`);
+    await expect(cellValue(page(), "'Live formulas'!B30")).resolves.toBe(48);
+    await expect(cellValue(page(), "'Live formulas'!B31")).resolves.toBeCloseTo((await cellValue(page(), 'North!N2')) as number, 12);
+    // A row typed just below the table joins it: the structured reference grows, the fixed range does not.
+    await typeInto(page(), 'North', 'B50', '5');
+    await typeInto(page(), 'North', 'C50', '52');
+    await expect(cellValue(page(), "'Live formulas'!B30")).resolves.toBe(49);
+    await expect(cellValue(page(), 'North!N5')).resolves.toBe(48);
+    await typeInto(page(), 'North', 'B50', '');
+    await typeInto(page(), 'North', 'C50', '');
+    await expect(cellValue(page(), "'Live formulas'!B30")).resolves.toBe(48);
   });
 });
 
