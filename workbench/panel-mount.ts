@@ -1,14 +1,28 @@
 /**
- * Where the real panel (taskpane/panel.ts) is mounted on the grid's workbook.
- * PANEL MOUNT POINT: until taskpane/panel.ts exports mountPanel, this shows a placeholder so the page still works.
+ * Mounts the real panel (taskpane/panel.ts) on the grid's workbook, starting on the demo pair (North: mechanics
+ * against repairs, picked by table header) with the same pair in the South region ready in Compare.
  */
+import { mountPanel, PanelHandle } from '../taskpane/panel';
 import type { Workbook } from '../taskpane/workbook';
 
-export function mountPanelInWorkbench(root: HTMLElement, workbook: Workbook): void {
-  void workbook;
-  const note = document.createElement('div');
-  note.className = 'wb-panel-placeholder';
-  note.dataset.testid = 'panel-placeholder';
-  note.textContent = 'The Covary panel mounts here (taskpane/panel.ts).';
-  root.replaceChildren(note);
+export const DEMO_PAIR = {
+  x: { kind: 'table', table: 'NorthWorkshops', column: 'Mechanics (FTE)' },
+  y: { kind: 'table', table: 'NorthWorkshops', column: 'Repairs per week' },
+} as const;
+
+export const DEMO_COMPARE_PAIR = {
+  x: { kind: 'table', table: 'SouthWorkshops', column: 'Mechanics (FTE)' },
+  y: { kind: 'table', table: 'SouthWorkshops', column: 'Repairs per week' },
+} as const;
+
+export function mountPanelInWorkbench(root: HTMLElement, workbook: Workbook): PanelHandle | null {
+  try {
+    return mountPanel(root, workbook, { initial: DEMO_PAIR, initialCompare: DEMO_COMPARE_PAIR });
+  } catch (e) {
+    const note = document.createElement('div');
+    note.className = 'wb-panel-placeholder';
+    note.textContent = `The panel could not start: ${e instanceof Error ? e.message : String(e)}`;
+    root.replaceChildren(note);
+    return null;
+  }
 }
