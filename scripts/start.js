@@ -20,7 +20,7 @@ const dist = path.join(root, 'dist');
 const stampFile = path.join(dist, '.build-stamp');
 
 /** What a working dist/ must hold. */
-const OUTPUTS = ['functions.js', 'functions.json', 'formula-worker.js', 'workbench.html', 'workbench.js', 'workbench.css', 'taskpane.html', 'taskpane.js'];
+const OUTPUTS = ['functions.js', 'functions.json', 'formula-worker.js', 'workbench.html', 'workbench.js', 'workbench.css', 'taskpane.html', 'taskpane.js', 'panel.css', 'panel-worker.js'];
 /** What the build reads: a change to any of these makes dist/ stale. */
 const SOURCE_DIRS = ['src', 'taskpane', 'workbench', 'assets'];
 const SOURCE_FILES = ['webpack.config.js', 'webpack.ui.js', 'tsconfig.json', 'package.json', 'package-lock.json'];
