@@ -38,3 +38,35 @@ describe('absurd sizes get a message that says what is wrong', () => {
     if (out.kind === 'host-error') expect(out.message).not.toMatch(/not a finite number|could not compute/);
   });
 });
+
+describe('units that differ by about 1e308 between x and y (each value within 1e-300 .. 1e300)', () => {
+  // Hollander & Wolfe data (R's ?cor.test example). Every check of CHECKS is unit-free (Shapiro-Wilk W, RESET F,
+  // Koenker's n R^2, studentized residuals, Cook's distance, Durbin-Watson), so rescaling x by 2^-705 (~2e-212) and
+  // y by 2^319 (~1e96) must not change them; only the slope in y-units-per-x-unit (2^1024 times larger) leaves the
+  // range of doubles, and no check needs it in those units.
+  const inv = { parameterAddresses: ['Sheet1!B2:B10', 'Sheet1!C2:C10', null], address: 'Sheet1!E2' };
+  const statisticsOf = (v: unknown) => (v as unknown[][]).slice(1).map((r) => [r[0], r[2], r[3], r[4]]);
+
+  (isRegistered('CHECKS') ? test : test.skip)('CHECKS(x * 2^-705, y * 2^319) = CHECKS(x, y) in every statistic, p-value and verdict', () => {
+    const plain = callCell('CHECKS', [col(rRef.x), col(rRef.y), null, inv]);
+    const rescaled = callCell('CHECKS', [col(scaled(rRef.x, 2 ** -705)), col(scaled(rRef.y, 2 ** 319)), null, inv]);
+    if (plain.kind !== 'value' || rescaled.kind !== 'value') throw new Error(`${describeOutcome(plain)} vs ${describeOutcome(rescaled)}`);
+    const a = statisticsOf(plain.value);
+    const b = statisticsOf(rescaled.value);
+    a.forEach((row, i) => {
+      expect(b[i][0]).toBe(row[0]);
+      expect(b[i][3]).toBe(row[3]);
+      for (const c of [1, 2]) {
+        if (typeof row[c] === 'number') expectRel(b[i][c] as number, row[c] as number, 1e-9, `${String(row[0])} column ${c}`);
+        else expect(b[i][c]).toBe(row[c]);
+      }
+    });
+  });
+
+  (isRegistered('REPORT') ? test : test.skip)('REPORT(x * 1e-300, y * 1e300) answers: the coefficient rows as for (x, y), the slope shown or left out', () => {
+    const out = callCell('REPORT', [col(scaled(rRef.x, 1e-300)), col(scaled(rRef.y, 1e300)), null, null, inv]);
+    if (out.kind !== 'value') throw new Error(`REPORT refused: ${describeOutcome(out)}`);
+    const r = (out.value as unknown[][]).find((row) => row[0] === 'r')?.[1] as number;
+    expectRel(r, rRef.pearson[2].r, 1e-12, 'r (R cor.test)');
+  });
+});

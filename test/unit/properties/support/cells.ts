@@ -29,6 +29,12 @@ export const HOSTILE_TEXT = [
   'TRUE',
 ];
 
+/**
+ * Cell numbers are generated with magnitudes from 1e-300 to 1e300 (or 0): the range the functions promise to
+ * handle. (Excel itself keeps no subnormal numbers at all.)
+ */
+export const noSubnormal = (v: number): number => (Math.abs(v) < 1e-300 ? 0 : Math.abs(v) > 1e300 ? Math.sign(v) * 1e300 : v);
+
 /** A finite number of any magnitude, 1e-300 to 1e300, either sign, plus the small integers people type. */
 export const anyMagnitude: fc.Arbitrary<number> = fc.oneof(
   fc.integer({ min: -1000, max: 1000 }),
@@ -36,8 +42,8 @@ export const anyMagnitude: fc.Arbitrary<number> = fc.oneof(
     .tuple(fc.double({ min: 1, max: 10, noNaN: true }), fc.integer({ min: -300, max: 300 }), fc.boolean())
     .map(([m, e, neg]) => (neg ? -1 : 1) * m * Math.pow(10, e))
     .filter((v) => Number.isFinite(v)),
-  fc.constantFrom(0, -0, 1e-300, -1e-300, 1e300, -1e300, Number.MIN_VALUE, Number.MAX_VALUE, -Number.MAX_VALUE, 2 ** -1022),
-  fc.double({ noNaN: true, noDefaultInfinity: true }),
+  fc.constantFrom(0, -0, 1e-300, -1e-300, 1e300, -1e300, 9.99e299, -9.99e299),
+  fc.double({ noNaN: true, noDefaultInfinity: true }).map(noSubnormal),
 );
 
 /** Anything a cell can hold as Excel passes it (blank as null or "", text, booleans), plus non-finite numbers. */
@@ -76,7 +82,7 @@ export function numericColumns(count: number, minRows = 3, maxRows = 40): fc.Arb
       )
       .map(([noise, shape]) =>
         shape.map(([weight, exponent], j) =>
-          noise[0].map((common, i) => (weight * common + noise[j + 1][i]) * Math.pow(10, exponent)).map((v) => (Number.isFinite(v) ? v : 0)),
+          noise[0].map((common, i) => (weight * common + noise[j + 1][i]) * Math.pow(10, exponent)).map((v) => (Number.isFinite(v) ? noSubnormal(v) : 0)),
         ),
       ),
   );
@@ -106,7 +112,7 @@ function plausibleNumbers(p: ParamMeta): number[] {
   if (/whole number|at least/.test(d)) return SIZES;
   return PLAUSIBLE_NUMBERS;
 }
-const HOSTILE_NUMBERS = [0, 1, -1, 2, -2, 1.5, 3, 1e-300, -1e-300, 1e300, -1e300, 1e9, 2 ** 31, 0.999999999999, -0.999999999999, 5e-324];
+const HOSTILE_NUMBERS = [0, 1, -1, 2, -2, 1.5, 3, 1e-300, -1e-300, 1e300, -1e300, 1e9, 2 ** 31, 0.999999999999, -0.999999999999, 5e-300];
 
 function scalarArb(p: ParamMeta, hostile: boolean): fc.Arbitrary<unknown> {
   const words = optionWords(p);
@@ -195,5 +201,23 @@ export function argsFor(f: FunctionMeta): fc.Arbitrary<unknown[]> {
       });
     });
   const hostile = fc.tuple(...f.parameters.map((p) => (p.dimensionality === 'matrix' ? hostileRange : scalarArb(p, true))));
-  return fc.oneof(wellFormed, hostile) as fc.Arbitrary<unknown[]>;
+  const args = fc.oneof(wellFormed, hostile) as fc.Arbitrary<unknown[]>;
+  if (!f.options?.requiresParameterAddresses) return args;
+  // @requiresParameterAddresses: Excel appends an Invocation whose parameterAddresses name each argument's range.
+  return fc.tuple(args, invocationArb(f.parameters.length)).map(([a, inv]) => [...a, inv]);
+}
+
+/** Addresses as Excel writes them, plus ones that do not match the range or carry markup in the sheet name. */
+const addressArb: fc.Arbitrary<unknown> = fc.oneof(
+  fc
+    .tuple(fc.constantFrom('Sheet1', "'Q3 data'", "'<img src=x onerror=alert(1)>'", 'Data'), fc.constantFrom('B', 'C', 'XFD', 'AA'), fc.integer({ min: 1, max: 1048576 }), fc.integer({ min: 0, max: 60 }))
+    .map(([sheet, column, start, rows]) => `${sheet}!${column}${start}:${column}${Math.min(1048576, start + rows)}`),
+  fc.constantFrom<unknown>('Sheet1!B2', 'Sheet1!B2:AO2', 'Sheet1!$B$2:$B$40', '', 'not an address', null, undefined, 42),
+);
+
+function invocationArb(parameters: number): fc.Arbitrary<unknown> {
+  return fc.oneof(
+    { weight: 4, arbitrary: fc.array(addressArb, { minLength: parameters, maxLength: parameters }).map((parameterAddresses) => ({ parameterAddresses, address: 'Sheet1!H2' })) },
+    { weight: 1, arbitrary: fc.constantFrom<unknown>(undefined, null, {}, { parameterAddresses: null }, { parameterAddresses: [] }) },
+  );
 }

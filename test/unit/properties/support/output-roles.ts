@@ -86,6 +86,44 @@ function matrixTable(value: unknown, args: unknown[]): string[] {
   return out;
 }
 
+/** CHECKS: a header row and one row per check: statistic, p-value in [0, 1] or "", a known verdict. */
+function checksTable(value: unknown): string[] {
+  if (!Array.isArray(value) || value.length < 2) return ['CHECKS answered no table'];
+  const rows = value as unknown[][];
+  const out: string[] = [];
+  rows.slice(1).forEach((r, i) => {
+    if (r.length !== 6) out.push(`check row ${i + 1} has ${r.length} cells`);
+    const [label, , statistic, p, verdict] = r;
+    if (typeof label !== 'string' || label === '') out.push(`check row ${i + 1} has no label`);
+    if (statistic !== '' && typeof statistic !== 'number') out.push(`${label}: statistic ${String(statistic)}`);
+    if (p !== '') out.push(...probability(p, `${label} p-value`));
+    if (!['ok', 'flag', 'not testable'].includes(verdict as string)) out.push(`${label}: verdict ${String(verdict)}`);
+  });
+  return out;
+}
+
+/** REPORT: two columns, label and value; the coefficient inside its interval, probabilities in [0, 1]. */
+function reportTable(value: unknown): string[] {
+  if (!Array.isArray(value)) return ['REPORT answered a scalar'];
+  const rows = value as unknown[][];
+  const out: string[] = [];
+  const find = (re: RegExp) => rows.find((r) => typeof r[0] === 'string' && re.test(r[0] as string))?.[1];
+  rows.forEach((r, i) => {
+    if (r.length !== 2) out.push(`report row ${i} has ${r.length} cells`);
+  });
+  const coefficientRow = rows.findIndex((r) => r[0] === 'Coefficient');
+  const estimate = coefficientRow >= 0 ? rows[coefficientRow + 1]?.[1] : undefined;
+  out.push(...inUnit(estimate, 'reported coefficient'));
+  const lower = find(/interval, lower/);
+  const upper = find(/interval, upper/);
+  if (isNum(lower) && isNum(upper) && isNum(estimate) && !(lower <= estimate && estimate <= upper)) {
+    out.push(`interval [${lower}, ${upper}] does not contain ${estimate}`);
+  }
+  out.push(...probability(find(/^p-value/)), ...probability(find(/^r²/), 'r²'));
+  for (const r of rows) if (typeof r[0] === 'string' && / alongside$/.test(r[0])) out.push(...inUnit(r[1], r[0]));
+  return out;
+}
+
 export const OUTPUT_ROLES: Record<string, RoleCheck> = {
   // @returns The coefficient, between -1 and 1.
   COEF: (v) => inUnit(v, 'coefficient'),
@@ -123,6 +161,12 @@ export const OUTPUT_ROLES: Record<string, RoleCheck> = {
   PARTIAL: (v) => estimateIntervalP(v, 1),
   // @returns A square table; the diagonal is 1 for "coef", the count for "pairs", empty for p-values.
   MATRIX: matrixTable,
+  // @returns A table with a header row and eight rows: check, test used, statistic, p-value, verdict, meaning.
+  CHECKS: checksTable,
+  // @returns One cell of text.
+  FLAGS: (v) => (Array.isArray(v) && v.length === 1 && Array.isArray(v[0]) && v[0].length === 1 && typeof v[0][0] === 'string' ? [] : [`FLAGS answered ${JSON.stringify(v)}`]),
+  // @returns A two-column table: what is reported, and its value.
+  REPORT: reportTable,
   // @returns The power, between 0 and 1.
   POWER: (v) => probability(v, 'power'),
   // @returns The number of rows (pairs of values), a whole number.
