@@ -297,7 +297,7 @@ function influenceRow(infl: LineInfluence, onLine: boolean, where: (i: number) =
 function rowOrderRow(x: ArrayLike<number>, fit: LineFit, onLine: boolean, alpha: number): CheckRow {
   const key = 'row-order';
   const exact = fit.n < 100;
-  const test = `Durbin–Watson, one-sided, ${exact ? 'exact' : 'normal approximation'}`;
+  const test = `Durbin–Watson, one-sided, ${exact ? 'exact (Imhof)' : 'normal approximation'}`;
   if (fit.n < MIN_FOR_RESIDUALS) return notTestable(key, test, tooFew(MIN_FOR_RESIDUALS));
   if (onLine) return notTestable(key, test, ON_LINE);
   return safely(key, test, () => {
