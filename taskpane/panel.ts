@@ -160,6 +160,11 @@ function fmt(v: number): string {
   return String(Number(v.toPrecision(4)));
 }
 
+/** The core's messages call the columns x and y; say which columns those are. */
+export function nameAxes(message: string, xHeader: string, yHeader: string): string {
+  return message.replace(/^(x|y)\b/, (axis) => `${axis === 'x' ? xHeader : yHeader} (${axis})`);
+}
+
 /** A statistic tile: a small caption over a large value. */
 function tile(caption: string, testid: string, captionTestid?: string): { root: HTMLElement; value: HTMLElement; caption: HTMLElement; sub: HTMLElement } {
   const cap = el('div', { class: 'cv-tile-caption', text: caption, testid: captionTestid });
@@ -243,19 +248,14 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
   const flaggedRowsList = el('div', { class: 'cv-flagged-rows', testid: PANEL_TEST_IDS.flaggedRows });
   const checksBody = el('tbody');
   const checksTable = el('table', { class: 'cv-checks', testid: PANEL_TEST_IDS.checksTable }, [
-    el('thead', {}, [el('tr', {}, ['Check', 'Result', 'p', 'Test'].map((h) => el('th', { text: h, attrs: { scope: 'col' } })))]),
+    el('thead', {}, [el('tr', {}, ['Check', 'Result', 'p'].map((h) => el('th', { text: h, attrs: { scope: 'col' } })))]),
     checksBody,
   ]);
   const formulasButton = button('Put formulas in sheet', PANEL_TEST_IDS.formulasButton, 'primary');
   const reportButton = button('Write report sheet', PANEL_TEST_IDS.reportButton);
   const actionStatus = el('div', { class: 'cv-inline-message', testid: PANEL_TEST_IDS.actionStatus, attrs: { role: 'status' } });
-  fill(rel.body, [
-    picker.element,
-    el('div', { class: 'cv-field-grid' }, [
-      el('label', { class: 'cv-field-label', text: 'Coefficient' }), methodSelect,
-      el('label', { class: 'cv-field-label', text: 'Interval' }), levelSelect,
-    ]),
-    relMessage,
+  // Results stay hidden until there is something to show (no empty charts).
+  const relResults = el('div', { class: 'cv-results cv-hidden' }, [
     el('div', { class: 'cv-tiles' }, [tiles.r.root, tiles.interval.root, tiles.p.root, tiles.pairs.root]),
     scatter.root,
     legend(),
@@ -267,18 +267,29 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
     el('div', { class: 'cv-row cv-wrap cv-actions' }, [formulasButton, reportButton]),
     actionStatus,
   ]);
+  fill(rel.body, [
+    picker.element,
+    el('div', { class: 'cv-field-grid' }, [
+      el('label', { class: 'cv-field-label', text: 'Coefficient' }), methodSelect,
+      el('label', { class: 'cv-field-label', text: 'Interval' }), levelSelect,
+    ]),
+    relMessage,
+    relResults,
+  ]);
 
   // 2. Residual diagnostics
   const res = section('2', 'Residual diagnostics', 'section-residuals');
   const residualsChart = chartBox(PANEL_TEST_IDS.residuals, 'Residuals against fitted values', 'A band of even width around zero is good; a curve or a funnel is not.');
   const qqChart = chartBox(PANEL_TEST_IDS.qq, 'Normal Q-Q plot of the residuals', 'Points near the dashed line: residuals close to normal.');
   const orderChart = chartBox(PANEL_TEST_IDS.order, 'Residuals in sheet row order', 'Runs of same-sign residuals suggest neighbouring rows are alike.');
-  fill(res.body, [
+  const resWaiting = el('p', { class: 'cv-hint', text: 'The residual plots appear once a pair of columns gives a result.' });
+  const resResults = el('div', { class: 'cv-results cv-hidden' }, [
     el('p', { class: 'cv-hint', text: 'Hover a point to see its sheet row; click it to select that row.' }),
     residualsChart.root,
     qqChart.root,
     orderChart.root,
   ]);
+  fill(res.body, [resWaiting, resResults]);
 
   // 3. Compare
   const cmp = section('3', 'Compare two correlations', 'section-compare');
@@ -405,6 +416,7 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
   }
 
   function renderRelationship(v: RelationshipView): void {
+    showResults(true);
     const c = v.correlation;
     tiles.r.caption.textContent = c.name === 'Kendall tau-b' ? 'Kendall τ-b' : c.name === 'Spearman' ? 'Spearman ρ' : `${c.name} r`;
     tiles.r.value.textContent = formatR(c.statistic);
@@ -435,10 +447,13 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
     ]);
 
     fill(checksBody, v.checks.map((row) => el('tr', { class: `cv-verdict-${row.verdict.replace(' ', '-')}` }, [
-      el('th', { attrs: { scope: 'row' } }, [el('div', { text: row.label }), el('div', { class: 'cv-meaning', text: row.meaning })]),
+      el('th', { attrs: { scope: 'row' } }, [
+        el('div', { text: row.label }),
+        el('div', { class: 'cv-meaning', text: row.meaning }),
+        el('div', { class: 'cv-test', text: row.test }),
+      ]),
       el('td', {}, [el('span', { class: `cv-badge cv-badge-${row.verdict.replace(' ', '-')}`, text: row.verdict === 'ok' ? 'ok' : row.verdict === 'flag' ? 'flag' : 'n/a' })]),
       el('td', { class: 'cv-num', text: row.pValue === null ? '–' : formatPValue(row.pValue) }),
-      el('td', { class: 'cv-test', text: row.test }),
     ])));
 
     const d = v.drawn;
@@ -506,8 +521,15 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
     }
   }
 
+  function showResults(on: boolean): void {
+    relResults.classList.toggle('cv-hidden', !on);
+    resResults.classList.toggle('cv-hidden', !on);
+    resWaiting.classList.toggle('cv-hidden', on);
+  }
+
   function clearRelationship(): void {
     current = null;
+    showResults(false);
     for (const t of Object.values(tiles)) {
       t.value.textContent = '–';
       t.value.removeAttribute('data-value');
@@ -612,18 +634,18 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
         return;
       }
       lap('pair');
-      const big = compute.usesWorker(pairs.x.length) || pairs.x.length >= compute.workerThreshold;
-      if (big) showProgress(`Computing on ${formatCount(pairs.x.length)} rows…`);
-      const view = await compute.analyse(pairs, { method, level, alpha, drawLimit }, (stage) => {
-        if (big) showProgress(`Computing on ${formatCount(pairs.x.length)} rows: ${stage}…`);
-      });
+      const inWorker = compute.usesWorker(pairs.x.length);
+      if (inWorker || pairs.x.length >= compute.workerThreshold) {
+        showProgress(`Computing on ${formatCount(pairs.x.length)} rows${inWorker ? ' in the background; the sheet stays usable' : ''}…`);
+      }
+      const view = await compute.analyse(pairs, { method, level, alpha, drawLimit }, () => undefined);
       if (gen !== generation) return;
       lap('compute');
       showProgress(null);
       if (isFailure(view)) {
         clearRelationship();
         setState('error');
-        showMessage(relMessage, view.error);
+        showMessage(relMessage, nameAxes(view.error, pairs.xHeader, pairs.yHeader));
       } else {
         showMessage(relMessage, null);
         current = view;

@@ -1,7 +1,7 @@
 /**
  * Preview page for the panel on an in-memory workbook (no Office, no workbench): used to take screenshots and
  * to time redraws. The scenario comes from the URL hash: #demo (default), #markup (a header holding markup),
- * #rows=100000 (a large column pair for timing).
+ * #rows=100000 (a large column pair for timing), #empty (nothing picked yet), #constant (a column that does not vary).
  *
  * Demo data: an invented chain of bakeries, "Juniper Lane Bakeries"; every number is generated here.
  */
@@ -58,6 +58,12 @@ if (hash.startsWith('rows=')) {
   });
   (window as unknown as { previewEdit: (row: number, v: number) => void }).previewEdit = (row, v) => wb.set('Big', row, 2, v);
   void handle;
+} else if (hash === 'empty' || hash === 'constant') {
+  const grid = branchSheet(rand, 20, 1.5, false);
+  if (hash === 'constant') for (let i = 1; i < grid.length; i++) grid[i][2] = 200;
+  wb.sheets.set('North', grid);
+  wb.selection = hash === 'empty' ? 'North!A1' : 'North!B1:C21';
+  mountPanel(root, wb, { workerUrl: 'panel-worker.js' });
 } else {
   const markup = hash === 'markup';
   wb.sheets.set('North', branchSheet(rand, 40, 1.9, true, markup ? '<img src=x onerror=alert(1)>' : 'Oven hours'));

@@ -40,8 +40,8 @@ async function main() {
       page.on('pageerror', (e) => problems.push(`pageerror: ${e.message}`));
       page.on('dialog', async (d) => { problems.push(`DIALOG OPENED: ${d.message()}`); await d.dismiss(); });
       await page.goto(`${base}#${scenario}`);
-      await page.waitForFunction(() => ['ready', 'error'].includes(document.getElementById('app').getAttribute('data-state')), null, { timeout: 60000 });
-      await page.waitForFunction(() => window.__covaryPanel && window.__covaryPanel.renderCount() > 0, null, { timeout: 60000 });
+      await page.waitForFunction(() => ['ready', 'error', 'empty'].includes(document.getElementById('app').getAttribute('data-state')), null, { timeout: 60000 });
+      if (scenario !== 'empty') await page.waitForFunction(() => window.__covaryPanel && window.__covaryPanel.renderCount() > 0, null, { timeout: 60000 });
       await page.evaluate(() => window.__covaryPanel.whenIdle());
       const name = scenario.replace(/[^a-z0-9]+/gi, '-');
       if (scenario.startsWith('rows=')) {
@@ -61,7 +61,26 @@ async function main() {
         }
         console.log(scenario, JSON.stringify(timings));
       }
+      if (scenario === 'demo' || scenario === 'markup') {
+        // Hover then click the first flagged point on the residual plot: the tooltip names the row, the click
+        // must select that row in the workbook.
+        const row = await page.evaluate(() => window.__covaryPanel.flaggedRows()[0]);
+        if (row !== undefined) {
+          const at = await page.evaluate((r) => window.__covaryPanel.pointOnScreen('residuals', r), row);
+          await page.locator('[data-testid="chart-residuals"]').scrollIntoViewIfNeeded();
+          const at2 = await page.evaluate((r) => window.__covaryPanel.pointOnScreen('residuals', r), row);
+          await page.mouse.move(at2.x, at2.y);
+          await page.waitForTimeout(200);
+          await page.locator('[data-testid="chart-residuals-frame"]').screenshot({ path: path.join(out, `panel-${name}-hover.png`) });
+          await page.mouse.click(at2.x, at2.y);
+          await page.waitForTimeout(100);
+          const selected = await page.evaluate(() => window.previewWorkbook.selectedRows.slice());
+          console.log(`flagged row ${row} at`, at, '-> selected', JSON.stringify(selected));
+        }
+        await page.click('.cv-details summary');
+      }
       await page.screenshot({ path: path.join(out, `panel-${name}.png`), fullPage: true });
+      await page.locator('[data-testid="checks-table"]').screenshot({ path: path.join(out, `panel-${name}-checks.png`) }).catch(() => undefined);
       for (const id of ['section-relationship', 'section-residuals', 'section-compare', 'section-cautions']) {
         await page.locator(`[data-testid="${id}"]`).screenshot({ path: path.join(out, `panel-${name}-${id}.png`) });
       }
