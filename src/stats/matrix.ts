@@ -37,13 +37,18 @@ export interface CorrelationMatrix {
 
 /**
  * How long a matrix may take, and the cost model that predicts it before any work is done. Figures measured on
- * the project's 2-core build machine (node 20), best of three runs on a shared machine, then rounded up
- * (re-run with COVARY_BENCH=1 on test/unit/compare/matrix-limits.test.ts, which times requests at the limit):
+ * the project's 2-core build machine (node 20, the core compiled by tsc), best of three runs on a shared machine,
+ * then rounded up:
  * - "linear" pairs (Pearson; Spearman on columns without gaps, ranked once per column): about 10 us per pair
  *   plus 30 ns per row.
- * - "sorted" pairs (Kendall; Spearman on a pair with gaps, ranked per pair): each pair sorts its rows. Up to 256
- *   rows about 15 us per pair plus 0.7 us per row; above that the sort changes method and costs about 1.2 ms
+ * - "sorted" pairs (Kendall; Spearman on a pair with gaps, ranked per pair): each pair sorts its rows. Below 256
+ *   rows about 15 us per pair plus 0.7 us per row; from 256 rows the sort changes method and costs about 1.2 ms
  *   per pair plus 0.4 us per row.
+ * Timings inside jest run many times slower than in plain node or a browser (seen: 75 s in jest against 1.6 s
+ * in node for the same 200 x 1,341 Pearson matrix on the same loaded machine), so the figures come from node.
+ * Check on the same machine under a load average of 12 (other builds running): requests at the limit took
+ * 1.2 s (Pearson, 200 x 1,341), 0.9 s (Pearson, 40 x 42,401), 0.7 s (Kendall, 60 x 255), 2.0 s (Kendall,
+ * 15 x 20,809) and 1.3 s (Kendall, 200 x 50).
  * The budget is 1 s on that machine: a fifth of the roughly 5 s after which Excel desktop restarts an
  * unresponsive add-in, leaving room for slower computers. maxColumns keeps the answer (maxColumns^2 cells,
  * 40,000 for 200) far below the ~5 MB one custom-function call may return, and readable.
@@ -56,7 +61,8 @@ export const MATRIX_LIMITS = {
 /** Predicted microseconds for one pair over `rows` rows. */
 function pairMicroseconds(kind: 'linear' | 'sorted', rows: number): number {
   if (kind === 'linear') return 10 + 0.03 * rows;
-  return rows <= 256 ? 15 + 0.7 * rows : 1200 + 0.4 * rows;
+  // argsort (sort.ts) sorts by comparison below 256 keys and by four 16-bit radix passes from 256 on.
+  return rows < 256 ? 15 + 0.7 * rows : 1200 + 0.4 * rows;
 }
 
 /** Predicted milliseconds for the given numbers of linear and sorted pairs over `rows` rows. */

@@ -1,10 +1,9 @@
 /**
  * The size limit of the correlation matrix: an oversized request is refused from its dimensions, before any cell
  * is read, and the cost model behind the limit (MATRIX_LIMITS in src/stats/matrix.ts) behaves as documented.
- *
- * Wall-clock checks of the model run only with COVARY_BENCH=1 (e.g. `COVARY_BENCH=1 npx jest
- * test/unit/compare/matrix-limits --selectProjects unit`): on a shared 2-core machine other work makes timings
- * swing by a factor of ten, which would make an always-on timing test fail for reasons unrelated to the code.
+ * No wall-clock check of the model here: timings inside jest run many times slower than in node or a browser,
+ * and on a shared 2-core machine other work makes them swing by a factor of ten (see MATRIX_LIMITS for how the
+ * figures were measured).
  */
 import { MATRIX } from '../../../src/functions/fn-compare';
 import { CellError } from '../../../src/functions/cells';
@@ -95,21 +94,5 @@ describe('matrix size limit', () => {
     const cols = columns(k, rowsAtLimit(k, 'pearson'));
     cols.forEach((c, i) => (c[i] = NaN)); // every column has a gap: every pair is ranked on its own
     expect(() => correlationMatrix(cols, 'spearman')).toThrow(/too much to compute promptly/);
-  });
-
-  const bench = process.env.COVARY_BENCH === '1' ? test.each : test.skip.each;
-  bench([
-    [200, 'pearson'],
-    [40, 'pearson'],
-    [60, 'kendall'],
-    [15, 'kendall'],
-  ] as const)('benchmark: %i columns of %s at the row limit answer within 5 s', (k, method) => {
-    const cols = columns(k, rowsAtLimit(k, method));
-    correlationMatrix(columns(10, 100), method); // warm up
-    const t0 = performance.now();
-    correlationMatrix(cols, method);
-    const ms = performance.now() - t0;
-    console.log(`${k} columns x ${cols[0].length} rows, ${method}: ${ms.toFixed(0)} ms (model: budget ${MATRIX_LIMITS.budgetMs} ms)`);
-    expect(ms).toBeLessThan(5000);
   });
 });
