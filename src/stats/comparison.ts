@@ -73,7 +73,7 @@ export function assertSampleSize(n: number, name: string, min = MIN_COMPARISON_N
   }
 }
 
-/** Checks the options: tail is one of the three words (callers from the cells already validated it) and 0 < level < 1. */
+/** Checks the confidence level lies strictly between 0 and 1 (the tail is typed, and the cells validate its word). */
 export function assertComparisonOptions(opts: ComparisonOptions): void {
   if (!(opts.level > 0 && opts.level < 1)) {
     throw new StatsInputError('out-of-range', `level must be between 0 and 1, e.g. 0.95 (got ${opts.level})`);
