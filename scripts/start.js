@@ -161,18 +161,18 @@ async function main() {
     log(e && e.code === 'EADDRINUSE' ? `port ${port} is in use: set PORT to another one (e.g. PORT=3001 npm start).` : `could not start the server: ${e && e.message}`);
     process.exit(1);
   }
-  const url = `${useTls ? 'https' : 'http'}://localhost:${server.port}/`;
-  log(`workbench: ${url}`);
-  log('press Ctrl+C to stop.');
-  openBrowser(url);
-
+  const running = server;
   const stop = () => {
-    for (const s of server.servers) s.closeAllConnections?.();
-    server.close().then(() => process.exit(0));
+    for (const s of running.servers) s.closeAllConnections?.();
+    running.close().then(() => process.exit(0));
     setTimeout(() => process.exit(0), 2000).unref();
   };
   process.on('SIGINT', stop);
   process.on('SIGTERM', stop);
+  const url = `${useTls ? 'https' : 'http'}://localhost:${server.port}/`;
+  log(`workbench: ${url}`);
+  log('press Ctrl+C to stop.');
+  openBrowser(url);
 }
 
 main();
