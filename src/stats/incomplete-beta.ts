@@ -8,12 +8,15 @@
  *   computation of the incomplete beta function ratios", ACM Transactions on Mathematical Software
  *   18(3):360–373 (their BFRAC), written in terms of λ = (a + b)(1 − x) − b, the distance from the mean. It is
  *   evaluated on the side of the mean where λ ≥ 0, using the symmetry I_x(a, b) = 1 − I_{1−x}(b, a).
- *   We first used the plain Lentz evaluation of 26.5.8 (as in Numerical Recipes), but for a in the millions and
- *   x a hair below 1 — the t test at n ≈ 10⁶ — it loses about ε·df/t² relative (1e-9 at t = 2, df = 1e7).
- * - The factor x^a (1 − x)^b / B(a, b) in front of the fraction is formed as in Didonato & Morris (1992),
- *   "Algorithm 708: Significant digit computation of the incomplete beta function ratios", ACM Transactions on
- *   Mathematical Software 18(3):360–373 (their BRCOMP): for large a and b the exponent is written as
- *   a·[ln(1 + e₁) − e₁] + b·[ln(1 + e₂) − e₂] around the mode, so that no huge terms cancel.
+ *   We first used the plain modified-Lentz evaluation of 26.5.8 (Press, Teukolsky, Vetterling & Flannery 2007,
+ *   Numerical Recipes, 3rd ed., §6.4), but for a in the millions and x a hair below 1 — the t test at n ≈ 10⁶ —
+ *   it loses about ε·df/t² relative (4e-10 at t = 2, df = 1e7), because it works with x instead of 1 − x.
+ * - The factor x^a (1 − x)^b / B(a, b) in front of the fraction is formed as in the same paper (their BRCOMP):
+ *   for large a and b the exponent is written as a·[ln(1 + e₁) − e₁] + b·[ln(1 + e₂) − e₂] around the mode, so
+ *   that no huge terms cancel.
+ * Didonato & Morris reserve BFRAC for a, b > 1 and switch to series and asymptotic expansions elsewhere; checked
+ * against mpmath, the fraction alone holds about 1e-13 relative for shapes from 0.001 to 1e7 as well (see the
+ * tests), which is simpler than carrying their five other expansions.
  *
  * Callers that know 1 − x more accurately than by subtraction (the t and F tails) pass both x and y = 1 − x.
  */
@@ -50,9 +53,8 @@ export function betaPowerTerm(a: number, b: number, x: number, y: number): numbe
 
 /**
  * I_x(a, b) by the continued fraction of A&S 26.5.8 in the contracted form of Didonato & Morris (1992, BFRAC),
- * written with λ = (a + b)(1 − x) − b ≥ 0 (x at or below the mean a/(a + b)). In this form every partial
- * denominator is a sum of positive terms, so the fraction keeps full precision even for x a hair below 1 and a
- * in the millions (where the plain Lentz evaluation of 26.5.8 loses about ε·a/t² for the t tail).
+ * written with λ = (a + b)(1 − x) − b ≥ 0 (x at or below the mean a/(a + b)). Its terms are formed from λ and
+ * 1 − x rather than from x, so the fraction keeps full precision even for x a hair below 1 and a in the millions.
  */
 function betaContinuedFraction(a: number, b: number, x: number, y: number, lambda: number): number {
   const power = betaPowerTerm(a, b, x, y);

@@ -20,6 +20,9 @@ export interface TailModel {
 const MAX_STEPS = 60;
 /** A Newton step this small (in ln x) leaves an error of about its square: done. */
 const STEP_TOLERANCE = 1e-8;
+/** ln of the largest double and of the smallest positive (subnormal) double. */
+const LOG_LARGEST = Math.log(Number.MAX_VALUE);
+const LOG_SMALLEST = Math.log(Number.MIN_VALUE);
 /** Two tails that agree this closely are the same double for all practical purposes. */
 const LOG_TOLERANCE = 1e-15;
 
@@ -70,6 +73,14 @@ export function solveTail(model: TailModel, p: number, guess?: number, secondGue
       next = rootAbove ? s + 1 : s - 1; // no usable slope and only one side known: walk by a factor e
     }
     if (above - below <= 4e-16 * Math.max(1, Math.abs(s))) return Math.exp(next);
+    // A root beyond the range of doubles: once the search stands at the edge and must go further, say so.
+    if (next > LOG_LARGEST) {
+      if (s === LOG_LARGEST) return Infinity;
+      next = LOG_LARGEST;
+    } else if (next < LOG_SMALLEST) {
+      if (s === LOG_SMALLEST) return 0;
+      next = LOG_SMALLEST;
+    }
     s = next;
     logTail = Math.log(model.tail(Math.exp(s)));
   }
