@@ -134,7 +134,9 @@ export function betaPowerTermTinyX(logX: number, a: number, b: number): number {
 
 /**
  * The regularized incomplete beta function I_x(a, b) = B(x; a, b)/B(a, b), for a, b > 0 and 0 ≤ x ≤ 1
- * (NaN otherwise). Relative accuracy about 1e-13 also when the result is tiny.
+ * (NaN otherwise). Relative accuracy about 1e-13 also when the result is tiny. 1 − x is formed by subtraction
+ * here, which alone costs about b·1e-16 relative when b is in the millions; callers that know 1 − x exactly
+ * should use incompleteBetaTail.
  * @example regularizedBeta(0.5, 2, 3) // 0.6875
  */
 export function regularizedBeta(x: number, a: number, b: number): number {
