@@ -30,7 +30,7 @@ export function checkedPairs(x: CellRange, y: CellRange, alpha: number, xAddress
   const naming = pointNaming(x, xAddress);
   const index = pairs.index;
   const report = prepared.memo(`checks|${alpha}|${naming.key}`, () =>
-    runChecks(prepared.x, prepared.y, { alpha, pointName: (i) => naming.name(index[i]), fit: prepared.fit }),
+    runChecks(prepared.x, prepared.y, { alpha, pointName: (i) => naming.name(index[i]) }),
   );
   return { pairs, prepared, report };
 }
@@ -85,6 +85,12 @@ export function FLAGS(x: any[][], y: any[][], alpha?: number, invocation?: Custo
   return guard(() => [[flagsText(checkedPairs(x, y, optAlpha(alpha), invocation?.parameterAddresses?.[0]).report)]]);
 }
 
+/** A value in the data's units, or words when the units of x and y are so far apart that it leaves the range of
+ * numbers (the checks, being free of units, are unaffected). */
+function inUnits(v: number): number | string {
+  return Number.isFinite(v) ? v : 'too large to show in these units (x and y differ in scale by more than 1e300)';
+}
+
 const SYMBOL_NAMES: Record<Method, string> = { pearson: 'Pearson r', spearman: 'Spearman rho', kendall: 'Kendall tau-b' };
 
 // Rows: pairs used and skipped, the coefficient with its interval and p-value, r², the line, the other coefficients
@@ -120,8 +126,8 @@ export function REPORT(x: any[][], y: any[][], level?: number, method?: string, 
       [`${pct} interval, upper`, Number.isFinite(result.interval.upper) ? result.interval.upper : noInterval],
       [`p-value (two-sided, ${result.pMethod})`, result.pValue],
       ['r² (Pearson: share of the variation in y the line accounts for)', pearsonR * pearsonR],
-      ['Slope of the line (change in y per unit of x)', report.line.slope],
-      ['Intercept of the line (y where x = 0)', report.line.intercept],
+      ['Slope of the line (change in y per unit of x)', inUnits(report.line.slope)],
+      ['Intercept of the line (y where x = 0)', inUnits(report.line.intercept)],
     ];
     for (const other of METHODS) {
       if (other !== m) rows.push([`${SYMBOL_NAMES[other]} alongside`, correlatePrepared(prepared, opts(other)).statistic]);

@@ -77,7 +77,9 @@ export interface CheckReport {
   /** Pairs checked. */
   n: number;
   alpha: number;
-  /** The least-squares line the residual checks refer to. */
+  /** The least-squares line the residual checks refer to, in the data's units. The slope (y units per x unit) and
+   * the residual sum of squares can overflow to Infinity, or underflow to 0, when the units of x and y differ by
+   * more than about 1e300; the checks themselves are free of units and unaffected. */
   line: { slope: number; intercept: number; rss: number };
   /** Exactly eight rows, in CHECK_KEYS order. */
   checks: CheckRow[];

@@ -1,3 +1,4 @@
+import { powerOfTwoScale } from '../comoments';
 import { normalQuantile } from '../distributions';
 import { fitLine, LineFit } from '../regression';
 import { StatsInputError } from '../types';
@@ -19,8 +20,6 @@ export interface RunChecksOptions {
   /** Names a pair in messages (e.g. "column F" for data laid out in rows); overrides rows. Without either, pairs
    * are named by their 1-based position among the pairs: "position 5". */
   pointName?: (i: number) => string;
-  /** The line fit of y on x when the caller already has it (it must be fitLine(x, y)). */
-  fit?: LineFit;
 }
 
 /** A leverage this close to 1 means the line must pass through that point. */
@@ -152,24 +151,37 @@ export function runChecks(xIn: ArrayLike<number>, yIn: ArrayLike<number>, opts: 
   const rows = opts.rows;
   const where = opts.pointName ?? ((i: number): string => (rows ? `row ${rows[i]}` : `position ${i + 1}`));
 
-  const fit = opts.fit ?? fitLine(x, y);
-  const onLine = liesOnLine(y, fit);
-  const infl = lineInfluence(x, fit.residuals);
+  // Every check is free of units, so all of them run on x and y scaled by powers of two (exact) to magnitudes
+  // near 1: columns in units 1e300 apart then cost nothing, where the slope in original units would overflow and
+  // take the residuals with it. Only the line and the per-point arrays are given back in original units.
+  const scaleX = powerOfTwoScale(x);
+  const scaleY = powerOfTwoScale(y);
+  const xs = scaleX === 1 ? x : x.map((v) => v / scaleX);
+  const ys = scaleY === 1 ? y : y.map((v) => v / scaleY);
+  const fit = fitLine(xs, ys);
+  const onLine = liesOnLine(ys, fit);
+  const infl = lineInfluence(xs, fit.residuals);
 
   const checks: CheckRow[] = [
-    normalityRow('normal-x', x, alpha, 3),
-    normalityRow('normal-y', y, alpha, 3),
+    normalityRow('normal-x', xs, alpha, 3),
+    normalityRow('normal-y', ys, alpha, 3),
     onLine
       ? notTestable('normal-residuals', n > SHAPIRO_WILK_MAX_N ? K2_TEST : SW_TEST, ON_LINE)
       : normalityRow('normal-residuals', fit.residuals, alpha, MIN_FOR_RESIDUALS),
-    straightLineRow(x, fit, onLine, alpha),
-    evenSpreadRow(x, fit, onLine, alpha),
+    straightLineRow(xs, fit, onLine, alpha),
+    evenSpreadRow(xs, fit, onLine, alpha),
     outlierRow(infl, onLine, alpha, where),
     influenceRow(infl, onLine, where),
-    rowOrderRow(x, fit, onLine, alpha),
+    rowOrderRow(xs, fit, onLine, alpha),
   ];
 
   const points = pointDiagnostics(fit, infl, onLine, alpha);
+  if (scaleY !== 1) {
+    for (let i = 0; i < n; i++) {
+      points.fitted[i] *= scaleY;
+      points.residuals[i] *= scaleY;
+    }
+  }
   const flags: string[] = [];
   let notTestableCount = 0;
   for (const row of checks) {
@@ -179,7 +191,7 @@ export function runChecks(xIn: ArrayLike<number>, yIn: ArrayLike<number>, opts: 
   return {
     n,
     alpha,
-    line: { slope: fit.slope, intercept: fit.intercept, rss: fit.rss },
+    line: { slope: (fit.slope * scaleY) / scaleX, intercept: fit.intercept * scaleY, rss: fit.rss * scaleY * scaleY },
     checks,
     flags,
     notTestable: notTestableCount,

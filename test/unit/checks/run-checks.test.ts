@@ -165,6 +165,21 @@ describe('large data', () => {
   });
 });
 
+describe('units far apart', () => {
+  test('x in units of 1e-300 and y of 1e300: every check as for (x, y) (R values), the slope leaves the range', () => {
+    const s = set(3);
+    const r = runChecks(s.x.map((v) => v * 1e-300), s.y.map((v) => v * 1e300), { alpha: 0.05 });
+    expectRel(row(r, 'normal-residuals').statistic!, s.sw_e!.W, 1e-12);
+    expectRel(row(r, 'straight-line').statistic!, s.curvature!.F, 1e-8);
+    expectRel(row(r, 'even-spread').statistic!, s.bp.statistic, 1e-8);
+    expectRel(row(r, 'outliers').statistic!, s.outlier.rstudent, 1e-9);
+    expectRel(row(r, 'influence').statistic!, s.cook.max, 1e-9);
+    expectRel(row(r, 'row-order').statistic!, s.dw.statistic, 1e-10);
+    expect(r.line.slope).toBe(Infinity);
+    expectRel(r.points.residuals[2] / 1e300, 3.241090909, 1e-9); // R 4.2.2: resid(lm(y3 ~ x3, anscombe))[3]
+  });
+});
+
 describe('bad input', () => {
   test('refused as a whole: too few pairs, constant columns, non-finite values, bad alpha, unequal lengths', () => {
     expect(() => runChecks([1, 2], [3, 4], { alpha: 0.05 })).toThrow(StatsInputError);
