@@ -19,7 +19,8 @@ const MAX_NUMBER_CHARS = 11;
 export function formatGeneral(v: number): string {
   if (v === 0) return '0';
   const a = Math.abs(v);
-  if (a < 1e11 && a >= 1e-9) {
+  // Below 1e-4 fixed notation would spend the width on zeros: scientific keeps the significant digits.
+  if (a < 1e11 && a >= 1e-4) {
     for (let digits = 10; digits >= 1; digits--) {
       const s = String(Number(v.toPrecision(digits)));
       if (!s.includes('e') && s.length <= MAX_NUMBER_CHARS) return s;
