@@ -314,8 +314,8 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
   const cmpMethod = el('div', { class: 'cv-chart-note', testid: PANEL_TEST_IDS.compareMethod });
   const cmpResults = el('div', { class: 'cv-hidden' }, [
     compareChart.root,
-    el('div', { class: 'cv-tiles' }, [cmpTiles.r1.root, cmpTiles.r2.root]),
-    el('div', { class: 'cv-tiles' }, [cmpTiles.diff.root, cmpTiles.interval.root, cmpTiles.p.root]),
+    el('div', { class: 'cv-tiles cv-tiles-2' }, [cmpTiles.r1.root, cmpTiles.r2.root]),
+    el('div', { class: 'cv-tiles cv-tiles-3' }, [cmpTiles.diff.root, cmpTiles.interval.root, cmpTiles.p.root]),
     cmpMethod,
   ]);
   fill(cmp.body, [
@@ -687,6 +687,7 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
       root.setAttribute('data-last-phases', JSON.stringify(phases));
       lastPhases = phases;
       try {
+        performance.clearMeasures('covary-redraw'); // keep one entry, not one per redraw of a long session
         performance.measure('covary-redraw', { start: cause.firstChangeAt, end: ended });
       } catch {
         // performance.measure with options is missing in old engines; the attributes above still hold the figure.

@@ -32,11 +32,6 @@ export class MemoryWorkbook implements Workbook {
     for (const l of this.listeners) l();
   }
 
-  private cell(sheet: string, row: number, column: number): unknown {
-    const v = this.sheets.get(sheet)?.[row - 1]?.[column - 1];
-    return v === undefined || v === null ? '' : v;
-  }
-
   async getSelection(): Promise<string> {
     return this.selection;
   }
@@ -65,11 +60,16 @@ export class MemoryWorkbook implements Workbook {
     const b = parseAddress(address)?.[0];
     if (!b) throw new Error(`bad address ${address}`);
     const lastRow = Math.min(b.lastRow, Math.max(b.firstRow, this.sheets.get(b.sheet)?.length ?? 0));
-    const values: unknown[][] = [];
+    const grid = this.sheets.get(b.sheet) ?? [];
+    const values: unknown[][] = new Array(Math.max(0, lastRow - b.firstRow + 1));
     for (let r = b.firstRow; r <= lastRow; r++) {
-      const row: unknown[] = [];
-      for (let c = b.firstColumn; c <= b.lastColumn; c++) row.push(this.cell(b.sheet, r, c));
-      values.push(row);
+      const source = grid[r - 1];
+      const row: unknown[] = new Array(b.lastColumn - b.firstColumn + 1);
+      for (let c = b.firstColumn; c <= b.lastColumn; c++) {
+        const v = source === undefined ? undefined : source[c - 1];
+        row[c - b.firstColumn] = v === undefined || v === null ? '' : v;
+      }
+      values[r - b.firstRow] = row;
     }
     return { address: formatBlock({ ...b, lastRow }), sheet: b.sheet, firstRow: b.firstRow, firstColumn: b.firstColumn, values };
   }
