@@ -6,6 +6,8 @@
  * Demo data: an invented chain of bakeries, "Juniper Lane Bakeries"; every number is generated here.
  */
 import { mountPanel } from '../../taskpane/panel';
+import { pairColumns } from '../../taskpane/pairs';
+import { analyseRelationship } from '../../taskpane/relationship';
 import { MemoryWorkbook } from './memory-workbook';
 
 /** Small seeded generator (mulberry32) so every preview shows the same data. */
@@ -57,6 +59,22 @@ if (hash.startsWith('rows=')) {
     workerUrl: 'panel-worker.js',
   });
   (window as unknown as { previewEdit: (row: number, v: number) => void }).previewEdit = (row, v) => wb.set('Big', row, 2, v);
+  // Best-of-k timings of the panel's own steps on these data, without drawing (to separate them from contention).
+  (window as unknown as { previewTimeSteps: (k: number) => Promise<Record<string, number>> }).previewTimeSteps = async (k) => {
+    const best: Record<string, number> = { read: Infinity, pair: Infinity, compute: Infinity };
+    for (let i = 0; i < k; i++) {
+      let t = performance.now();
+      const reads = await Promise.all([wb.readColumn({ kind: 'table', table: 'BigTable', column: 'Visits' }), wb.readColumn({ kind: 'table', table: 'BigTable', column: 'Spend' })]);
+      best.read = Math.min(best.read, performance.now() - t);
+      t = performance.now();
+      const p = pairColumns(reads[0], reads[1]);
+      best.pair = Math.min(best.pair, performance.now() - t);
+      t = performance.now();
+      analyseRelationship(p, { method: 'pearson', level: 0.95, alpha: 0.05, drawLimit: 2000 });
+      best.compute = Math.min(best.compute, performance.now() - t);
+    }
+    return best;
+  };
   void handle;
 } else if (hash === 'empty' || hash === 'constant') {
   const grid = branchSheet(rand, 20, 1.5, false);

@@ -60,6 +60,7 @@ async function main() {
           await page.waitForTimeout(300);
         }
         console.log(scenario, JSON.stringify(timings));
+        console.log('best of 10 without drawing:', JSON.stringify(await page.evaluate(() => window.previewTimeSteps(10))));
       }
       if (scenario === 'demo' || scenario === 'markup') {
         // Hover then click the first flagged point on the residual plot: the tooltip names the row, the click
