@@ -52,7 +52,7 @@ export function detectDesign(a: [CellBlock, CellBlock], b: [CellBlock, CellBlock
     const overlap = a.some((p) => b.some((q) => rowsOverlap(p, q)));
     return {
       design: 'independent',
-      why: `The pairs sit on different rows (${formatBlock(a[0])} and ${formatBlock(b[0])}), so they are read as two separate groups.`,
+      why: `${formatBlock(a[0])} and ${formatBlock(b[0])} are different rows, read as two separate groups of people or items.`,
       caution: overlap
         ? 'The two pairs share some rows. If the same people or items appear in both, the groups are not independent.'
         : undefined,
@@ -70,11 +70,11 @@ export function detectDesign(a: [CellBlock, CellBlock], b: [CellBlock, CellBlock
     const ib = keysB.indexOf(shared[0]) as 0 | 1;
     return {
       design: 'shared',
-      why: `Same rows, and ${formatBlock(a[ia])} is in both pairs: one variable in common.`,
+      why: `${formatBlock(a[ia])} is in both pairs.`,
       common: { a: ia, b: ib },
     };
   }
-  return { design: 'separate', why: 'Same rows, four different columns: two separate pairs measured on the same rows.' };
+  return { design: 'separate', why: 'Both pairs are measured on the same rows, with no column in common.' };
 }
 
 /**
