@@ -107,6 +107,7 @@ export const PANEL_TEST_IDS = {
   flags: 'flags',
   flaggedRows: 'flagged-rows',
   reading: 'reading',
+  advice: 'advice',
   checksTable: 'checks-table',
   method: 'method-select',
   level: 'level-select',
@@ -244,6 +245,7 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
   const relMessage = el('div', { class: 'cv-message cv-hidden', attrs: { role: 'alert' } });
   const scatter = chartBox(PANEL_TEST_IDS.scatter, 'Scatter with straight line and smooth');
   const reading = el('ul', { class: 'cv-reading', testid: PANEL_TEST_IDS.reading });
+  const advice = el('div', { class: 'cv-advice', testid: PANEL_TEST_IDS.advice });
   const flags = el('div', { class: 'cv-flags', testid: PANEL_TEST_IDS.flags });
   const flaggedRowsList = el('div', { class: 'cv-flagged-rows', testid: PANEL_TEST_IDS.flaggedRows });
   const checksBody = el('tbody');
@@ -260,6 +262,7 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
     scatter.root,
     legend(),
     reading,
+    advice,
     el('h3', { class: 'cv-subhead', text: 'Flags from the checks' }),
     flags,
     flaggedRowsList,
@@ -431,6 +434,24 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
     tiles.pairs.value.setAttribute('data-value', String(v.n));
 
     fill(reading, v.reading.map((t) => el('li', { text: t })));
+    const rec = v.recommendation;
+    advice.classList.toggle('cv-advice-change', rec.changed);
+    const switchTo: Method | null = rec.changed ? (rec.name === 'Spearman' ? 'spearman' : rec.name === 'Kendall tau-b' ? 'kendall' : null) : null;
+    let use: HTMLButtonElement | null = null;
+    if (switchTo) {
+      use = el('button', { class: 'cv-link', text: `Use ${rec.name}`, testid: 'advice-switch', attrs: { type: 'button' } });
+      use.addEventListener('click', () => {
+        methodSelect.value = switchTo;
+        method = switchTo;
+        scheduler.now();
+      });
+    }
+    fill(advice, [
+      el('span', { class: 'cv-advice-head', text: rec.changed ? (rec.name === 'none' ? 'No coefficient is reliable here. ' : `Consider ${rec.name} instead. `) : 'Advice: ' }),
+      el('span', { text: rec.reason }),
+      use ? el('span', { text: ' ' }) : null,
+      use,
+    ]);
 
     if (v.flags.length === 0) fill(flags, [el('span', { class: 'cv-chip cv-chip-ok', text: 'No flags: the checks found nothing to worry about' })]);
     else fill(flags, v.flags.map((f) => el('span', { class: 'cv-chip cv-chip-flag', text: f })));
@@ -535,6 +556,7 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
       t.value.removeAttribute('data-value');
     }
     clear(reading);
+    clear(advice);
     clear(flags);
     clear(flaggedRowsList);
     clear(checksBody);

@@ -1,21 +1,11 @@
 /**
  * The panel's plain-language reading of one correlation: strength, direction, what the interval and the
- * p-value say (and what the p-value does not say). Pure.
+ * p-value say (and what the p-value does not say). Short sentences naming the columns; the strength words and
+ * their convention are the core's (src/stats/checks/advice.ts), so the panel and COVARY.REPORT use the same
+ * words. Pure.
  */
+import { STRENGTH_CONVENTION, strengthWord, tauOnRScale } from '../src/stats/checks/advice';
 import type { CorrelationResult } from '../src/stats/types';
-
-/**
- * Strength words by |r| after Cohen (1988), Statistical Power Analysis for the Behavioral Sciences, 2nd ed.,
- * Erlbaum, section 3.2: .1 small, .3 medium, .5 large. A convention for when nothing better is known about
- * the field, not a law.
- */
-export function strengthWord(r: number): string {
-  const a = Math.abs(r);
-  if (a >= 0.5) return 'strong';
-  if (a >= 0.3) return 'moderate';
-  if (a >= 0.1) return 'weak';
-  return 'negligible';
-}
 
 /** r, an interval bound or a difference, two decimals with a true minus sign. */
 export function formatR(r: number): string {
@@ -40,18 +30,19 @@ export function formatCount(n: number): string {
 
 /**
  * Two or three short sentences: the strength and direction, the interval, the p-value.
- * @example readCorrelation(res, 'Visits', 'Sales') // "Moderate positive association: higher Visits go with higher Sales..."
+ * @example readCorrelation(res, 'Visits', 'Sales')[0] // "Medium positive correlation by Cohen's (1988) convention ..."
  */
 export function readCorrelation(res: CorrelationResult, xName: string, yName: string): string[] {
   const r = res.statistic;
-  const strength = strengthWord(r);
+  // Kendall's tau runs smaller than r for the same association: its strength word is read on the scale of r.
+  const strength = strengthWord(res.method === 'kendall' ? tauOnRScale(r) : r);
   const lines: string[] = [];
-  if (strength === 'negligible') {
-    lines.push(`Little or no ${res.method === 'pearson' ? 'straight-line ' : ''}association between ${xName} and ${yName} in these ${formatCount(res.n)} rows.`);
+  if (r === 0) {
+    lines.push(`No ${res.method === 'pearson' ? 'straight-line ' : ''}association between ${xName} and ${yName} in these ${formatCount(res.n)} rows.`);
   } else {
     const direction = r > 0 ? 'higher' : 'lower';
     lines.push(
-      `${strength[0].toUpperCase()}${strength.slice(1)} ${r > 0 ? 'positive' : 'negative'} association: higher ${xName} tends to go with ${direction} ${yName} (Cohen's convention: 0.1 weak, 0.3 moderate, 0.5 strong).`,
+      `${strength[0].toUpperCase()}${strength.slice(1)} ${r > 0 ? 'positive' : 'negative'} correlation by ${STRENGTH_CONVENTION}: higher ${xName} tends to go with ${direction} ${yName}.`,
     );
   }
   const pct = `${Math.round(res.interval.level * 100)}%`;

@@ -9,6 +9,7 @@
 import { correlate } from '../src/stats/correlate';
 import { normalQuantile } from '../src/stats/distributions';
 import { lowess } from '../src/stats/lowess';
+import { recommendCoefficient, Recommendation } from '../src/stats/checks/advice';
 import { runChecks } from '../src/stats/checks/run-checks';
 import type { CheckRow } from '../src/stats/checks/check-report';
 import { CorrelationResult, Method, StatsInputError } from '../src/stats/types';
@@ -72,6 +73,8 @@ export interface RelationshipView {
   /** Reference line of the Q-Q plot through the quartiles: residual = qqIntercept + qqSlope * normal score. */
   qqLine: { intercept: number; slope: number };
   reading: string[];
+  /** Which coefficient to report given the checks, and why (the same advice as COVARY.REPORT). */
+  recommendation: Recommendation;
   /** Milliseconds spent computing (not drawing). */
   computeMs: number;
 }
@@ -203,6 +206,7 @@ export function analyseRelationship(p: PairedRows, opts: RelationshipOptions): R
       smooth,
       qqLine,
       reading: readCorrelation(correlation, p.xHeader, p.yHeader),
+      recommendation: recommendCoefficient(report, correlation),
       computeMs: now() - t0,
     };
   } catch (e) {

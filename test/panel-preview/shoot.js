@@ -34,7 +34,7 @@ async function main() {
   });
   try {
     for (const scenario of scenarios) {
-      const page = await browser.newPage({ viewport: { width: 380, height: 900 }, deviceScaleFactor: 2 });
+      const page = await browser.newPage({ viewport: { width: Number(process.env.PANEL_WIDTH || 380), height: 900 }, deviceScaleFactor: 2 });
       const problems = [];
       page.on('console', (m) => { if (m.type() === 'error' || m.type() === 'warning') problems.push(`${m.type()}: ${m.text()}`); });
       page.on('pageerror', (e) => problems.push(`pageerror: ${e.message}`));
