@@ -99,6 +99,15 @@ describe('the panel writes only where the user asks', () => {
     expect(elsewhere).toEqual([]);
   });
 
+  test('only taskpane/excel-workbook.ts talks to Excel (Excel.run); taskpane.ts only waits for Office.onReady', () => {
+    for (const file of panelFiles()) {
+      const name = path.basename(file);
+      const code = fs.readFileSync(file, 'utf8').replace(/\/\*[\s\S]*?\*\/|\/\/.*$/gm, '');
+      if (name !== 'excel-workbook.ts') expect([name, /\bExcel\.run\b|context\.workbook/.test(code)]).toEqual([name, false]);
+      if (name !== 'taskpane.ts' && name !== 'excel-workbook.ts') expect([name, /\bOffice\.(context|onReady)/.test(code)]).toEqual([name, false]);
+    }
+  });
+
   test('no write through the older Office.js document API (selected data, bindings, settings, custom XML)', () => {
     for (const file of panelFiles()) {
       expect([file, fs.readFileSync(file, 'utf8').match(/set(Selected)?DataAsync|bindings\.add|settings\.(set|saveAsync)|customXmlParts\.add/g)]).toEqual([file, null]);
