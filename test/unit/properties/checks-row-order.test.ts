@@ -28,6 +28,10 @@ const shuffledCase = cleanColumns(2, 6, 40).chain(([x, y]) => fc.tuple(fc.consta
           if (a.kind === 'host-error' && b.kind === 'host-error' && a.code === b.code) return;
           throw new Error(`${describeOutcome(a)} vs ${describeOutcome(b)}`);
         }
+        // An exact straight line leaves residuals of rounding size only, whose pattern depends on summation order:
+        // that case is a fixed input in found-inputs.test.ts rather than left to chance here.
+        const r = callCell('COEF', [col(x), col(y), null]);
+        if (r.kind === 'value' && Math.abs(r.value as number) > 1 - 1e-9) return;
         const ra = a.value as unknown[][];
         const rb = b.value as unknown[][];
         expect(rb.map((r) => r[0])).toEqual(ra.map((r) => r[0]));

@@ -70,3 +70,39 @@ describe('units that differ by about 1e308 between x and y (each value within 1e
     expectRel(r, rRef.pearson[2].r, 1e-12, 'r (R cor.test)');
   });
 });
+
+(isRegistered('CHECKS') ? describe : describe.skip)('CHECKS on data that lie exactly on a line: the same answer in any row order', () => {
+  // Residuals of an exact fit are rounding noise; their size and pattern depend on the order of the sums. The
+  // residual checks (normal residuals, even spread, outliers, influence) must not report that noise as a
+  // finding, and must say the same thing whatever the row order: both orders "not testable", or the same numbers.
+  const inv = (n: number) => ({ parameterAddresses: [`Sheet1!B2:B${n + 1}`, `Sheet1!C2:C${n + 1}`, null], address: 'Sheet1!E2' });
+  const cases: [string, number[], number[], number[]][] = [
+    [
+      'one non-zero row among 20 (x = -0.0010005807767220715, y = 0.0010000000001434122 in row 18)',
+      [0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, -0.0010005807767220715, 0, 0],
+      [0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0.0010000000001434122, 0, 0],
+      [17, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12, 13, 14, 15, 16, 18, 1, 19, 0],
+    ],
+    [
+      'three distinct points on y = 1039.33 x among 10 rows',
+      [0, 0.0038145924060169916, 0.005008808778732074, 0, 0, 0, 0, 0, 0, 0],
+      [0, 3.964623709047827, 5.205809671021407, 0, 0, 0, 0, 0, 0, 0],
+      [1, 2, 3, 4, 5, 6, 7, 8, 9, 0],
+    ],
+  ];
+  test.each(cases)('%s', (_label, x, y, perm) => {
+    const a = callCell('CHECKS', [col(x), col(y), null, inv(x.length)]);
+    const b = callCell('CHECKS', [col(perm.map((k) => x[k])), col(perm.map((k) => y[k])), null, inv(x.length)]);
+    if (a.kind !== 'value' || b.kind !== 'value') throw new Error(`${describeOutcome(a)} vs ${describeOutcome(b)}`);
+    const rows = (v: unknown) => (v as unknown[][]).slice(1).filter((r) => !/row order/i.test(String(r[0])));
+    const ra = rows(a.value);
+    const rb = rows(b.value);
+    ra.forEach((row, i) => {
+      expect([row[0], rb[i][4]]).toEqual([row[0], row[4]]);
+      for (const c of [2, 3]) {
+        if (typeof row[c] === 'number') expectRel(rb[i][c] as number, row[c] as number, 1e-9, `${String(row[0])} column ${c}`);
+        else expect([row[0], c, rb[i][c]]).toEqual([row[0], c, row[c]]);
+      }
+    });
+  });
+});
