@@ -3,26 +3,15 @@
  * (2007) interval and the p-value of the test that fits the design. The statistics are the core's
  * (src/stats/compare-*.ts); this module only lines up the columns for the chosen design. Pure.
  */
-import { CellBlock, formatBlock } from './address';
+import { formatBlock } from './address';
 import { compareIndependentSamples } from '../src/stats/compare-independent';
 import { compareSeparateSamples } from '../src/stats/compare-separate';
 import { compareSharedSamples } from '../src/stats/compare-shared';
 import { ComparisonResult, pearsonFisherInterval } from '../src/stats/comparison';
 import { Interval, StatsInputError } from '../src/stats/types';
 import { Design, DesignDetection } from './design';
-import { ColumnRead, columnNumbers, completeRows, dataStart, pairColumns, PairingError } from './pairs';
-
-/** The data cells of a column read, as a block (header excluded). */
-export function dataBlock(read: ColumnRead): CellBlock {
-  const start = dataStart(read);
-  return {
-    sheet: read.sheet,
-    firstRow: read.firstRow + start,
-    lastRow: read.firstRow + Math.max(start, read.values.length) - 1,
-    firstColumn: read.firstColumn,
-    lastColumn: read.firstColumn,
-  };
-}
+import { completeRows, dataBlock, pairColumns, PairingError } from './pairs';
+import type { NumericColumnRead } from './workbook';
 
 export interface CompareView {
   design: Design;
@@ -50,8 +39,8 @@ export function isCompareFailure(v: CompareView | CompareFailure): v is CompareF
  * says which column is in both pairs.
  */
 export function computeComparison(
-  a: [ColumnRead, ColumnRead],
-  b: [ColumnRead, ColumnRead],
+  a: [NumericColumnRead, NumericColumnRead],
+  b: [NumericColumnRead, NumericColumnRead],
   design: Design,
   detection: DesignDetection,
   level: number,
@@ -70,12 +59,12 @@ export function computeComparison(
       if (!detection.common) return { error: 'Pick pairs that share exactly one column for this design.' };
       const ia = detection.common.a;
       const ib = detection.common.b;
-      const cols = completeRows([columnNumbers(a[ia]), columnNumbers(a[1 - ia]), columnNumbers(b[1 - ib])]);
+      const cols = completeRows([a[ia].numbers, a[1 - ia].numbers, b[1 - ib].numbers]);
       skipped = cols.skipped;
       const [common, otherA, otherB] = cols.columns;
       result = compareSharedSamples(common, otherA, otherB, opts);
     } else {
-      const cols = completeRows([columnNumbers(a[0]), columnNumbers(a[1]), columnNumbers(b[0]), columnNumbers(b[1])]);
+      const cols = completeRows([a[0].numbers, a[1].numbers, b[0].numbers, b[1].numbers]);
       skipped = cols.skipped;
       const [a0, a1, b0, b1] = cols.columns;
       result = compareSeparateSamples(a0, a1, b0, b1, opts);

@@ -2,11 +2,24 @@
  * Turns column reads from the workbook into complete numeric pairs, remembering each pair's sheet row so that a
  * point on a chart can lead back to its row. The rule for what counts is the cell functions' rule (see
  * src/functions/cells.ts): finite numbers count; blanks, text, TRUE/FALSE and errors are skipped pairwise. Pure.
+ *
+ * Everything downstream works on NumericColumnRead (a Float64Array per column, NaN for cells that do not count):
+ * hosts that can supply it directly do (Workbook.readColumnNumbers); otherwise numericColumn() converts a
+ * readColumn result.
  */
-import type { RangeRead } from './workbook';
+import type { CellBlock } from './address';
+import type { ColumnSource, NumericColumnRead, RangeRead, Workbook } from './workbook';
 
-/** One column as read, with its header. */
+/** One column as readColumn gives it, with its header. */
 export type ColumnRead = RangeRead & { header: string };
+
+/** Raised when columns cannot be read or paired as picked; the message is for the user. */
+export class PairingError extends Error {
+  constructor(message: string) {
+    super(message);
+    this.name = 'PairingError';
+  }
+}
 
 /** Where a column's numbers start: below a text header in the first cell, else at the first cell. */
 export function dataStart(read: ColumnRead): number {
@@ -19,16 +32,33 @@ export function cellNumber(v: unknown): number {
   return typeof v === 'number' && Number.isFinite(v) ? v : NaN;
 }
 
-/** One column's numbers (NaN where a cell does not count), from its data start. */
-export function columnNumbers(read: ColumnRead): Float64Array {
-  const start = dataStart(read);
+/**
+ * A readColumn result as numbers (header excluded).
+ * @throws PairingError when the read is more than one column wide.
+ */
+export function numericColumn(read: ColumnRead): NumericColumnRead {
   const rows = read.values;
-  const out = new Float64Array(Math.max(0, rows.length - start));
+  for (const row of rows) {
+    if (row.length > 1) throw new PairingError(`${read.address} is more than one column wide: pick one column for each variable.`);
+  }
+  const start = dataStart(read);
+  const numbers = new Float64Array(Math.max(0, rows.length - start));
   for (let i = start; i < rows.length; i++) {
     const row = rows[i];
-    out[i - start] = cellNumber(row === undefined ? undefined : row[0]);
+    numbers[i - start] = cellNumber(row === undefined ? undefined : row[0]);
   }
-  return out;
+  return { address: read.address, sheet: read.sheet, firstRow: read.firstRow + start, column: read.firstColumn, header: read.header, numbers };
+}
+
+/** Reads one column as numbers, through the host's fast path when it has one. */
+export async function readNumericColumn(wb: Workbook, source: ColumnSource): Promise<NumericColumnRead> {
+  if (wb.readColumnNumbers) return wb.readColumnNumbers(source);
+  return numericColumn(await wb.readColumn(source));
+}
+
+/** The data cells of a column as a block. */
+export function dataBlock(c: NumericColumnRead): CellBlock {
+  return { sheet: c.sheet, firstRow: c.firstRow, lastRow: c.firstRow + Math.max(1, c.numbers.length) - 1, firstColumn: c.column, lastColumn: c.column };
 }
 
 /** Complete pairs with the sheet row of each. */
@@ -46,32 +76,18 @@ export interface PairedRows {
   yHeader: string;
 }
 
-/** Raised when two columns cannot be paired; the message is for the user. */
-export class PairingError extends Error {
-  constructor(message: string) {
-    super(message);
-    this.name = 'PairingError';
-  }
-}
-
 /**
  * Pairs two columns row by row.
- * @throws PairingError when a read is wider than one column, the columns sit on different sheets or rows, or
- *   their data lengths differ.
+ * @throws PairingError when the columns sit on different sheets or rows, or their data lengths differ.
  */
-export function pairColumns(xRead: ColumnRead, yRead: ColumnRead): PairedRows {
-  for (const r of [xRead, yRead]) {
-    if (r.values.some((row) => row.length > 1)) throw new PairingError(`${r.address} is more than one column wide: pick one column for each variable.`);
-  }
-  const xs = columnNumbers(xRead);
-  const ys = columnNumbers(yRead);
-  const xFirst = xRead.firstRow + dataStart(xRead);
-  const yFirst = yRead.firstRow + dataStart(yRead);
+export function pairColumns(xc: NumericColumnRead, yc: NumericColumnRead): PairedRows {
+  const xs = xc.numbers;
+  const ys = yc.numbers;
   if (xs.length !== ys.length) {
-    throw new PairingError(`${xRead.header} has ${xs.length} cells and ${yRead.header} has ${ys.length}: pick columns of the same length.`);
+    throw new PairingError(`${xc.header} has ${xs.length} cells and ${yc.header} has ${ys.length}: pick columns of the same length.`);
   }
-  if (xRead.sheet !== yRead.sheet || xFirst !== yFirst) {
-    throw new PairingError(`${xRead.header} and ${yRead.header} start on different rows: each pair must be read from the same rows.`);
+  if (xc.sheet !== yc.sheet || xc.firstRow !== yc.firstRow) {
+    throw new PairingError(`${xc.header} and ${yc.header} start on different rows: each pair must be read from the same rows.`);
   }
   const total = xs.length;
   let used = 0;
@@ -84,11 +100,11 @@ export function pairColumns(xRead: ColumnRead, yRead: ColumnRead): PairedRows {
     if (xs[i] === xs[i] && ys[i] === ys[i]) {
       x[j] = xs[i];
       y[j] = ys[i];
-      rows[j] = xFirst + i;
+      rows[j] = xc.firstRow + i;
       j++;
     }
   }
-  return { x, y, rows, sheet: xRead.sheet, total, skipped: total - used, xHeader: xRead.header, yHeader: yRead.header };
+  return { x, y, rows, sheet: xc.sheet, total, skipped: total - used, xHeader: xc.header, yHeader: yc.header };
 }
 
 /**

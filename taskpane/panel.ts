@@ -13,13 +13,13 @@
  */
 import { CellBlock, formatBlock, twoColumnsOf } from './address';
 import { ComputeClient } from './compute-client';
-import { CompareFailure, CompareView, computeComparison, dataBlock, isCompareFailure } from './compare-view';
+import { CompareFailure, CompareView, computeComparison, isCompareFailure } from './compare-view';
 import { IntervalPlot, PlotPoint, PointPlot } from './charts';
 import { Design, DESIGN_LABELS, designProblem, detectDesign, DesignDetection } from './design';
 import { button, clear, el, fill, select } from './dom';
 import { LiveScheduler, RefreshCause } from './live-scheduler';
 import { describeSource, PairChoice, PairPicker } from './pair-picker';
-import { ColumnRead, pairColumns, PairingError } from './pairs';
+import { dataBlock, pairColumns, PairingError, readNumericColumn } from './pairs';
 import { formatCount, formatPValue, formatR } from './reading';
 import {
   DEFAULT_RELATIONSHIP_OPTIONS,
@@ -39,7 +39,7 @@ import {
   ColumnRef,
 } from './sheet-output';
 import type { Method } from '../src/stats/types';
-import type { ColumnSource, Workbook } from './workbook';
+import type { ColumnSource, NumericColumnRead, Workbook } from './workbook';
 
 export interface PanelOptions {
   /** Pair to show at once (e.g. the workbench's demo pair). Without it the panel tries the current selection. */
@@ -355,7 +355,7 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
   // ---- state --------------------------------------------------------------------------------------------------
   let mainChoice: PairChoice | null = null;
   let secondChoice: PairChoice | null = null;
-  let mainReads: [ColumnRead, ColumnRead] | null = null;
+  let mainReads: [NumericColumnRead, NumericColumnRead] | null = null;
   let comparison: CompareView | null = null;
   let unwatch: (() => void) | null = null;
   let generation = 0;
@@ -386,12 +386,12 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
   }
 
   // ---- reading ------------------------------------------------------------------------------------------------
-  async function readPair(c: PairChoice): Promise<[ColumnRead, ColumnRead]> {
-    const [x, y] = await Promise.all([wb.readColumn(c.x), wb.readColumn(c.y)]);
+  async function readPair(c: PairChoice): Promise<[NumericColumnRead, NumericColumnRead]> {
+    const [x, y] = await Promise.all([readNumericColumn(wb, c.x), readNumericColumn(wb, c.y)]);
     return [x, y];
   }
 
-  function where(read: ColumnRead): string {
+  function where(read: NumericColumnRead): string {
     return formatBlock(dataBlock(read));
   }
 
@@ -631,7 +631,7 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
         return;
       }
       setState('busy');
-      let reads: [ColumnRead, ColumnRead];
+      let reads: [NumericColumnRead, NumericColumnRead];
       try {
         reads = await readPair(mainChoice);
       } catch (e) {
@@ -676,7 +676,7 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
       lap('draw');
 
       if (secondChoice) {
-        let second: [ColumnRead, ColumnRead] | null = null;
+        let second: [NumericColumnRead, NumericColumnRead] | null = null;
         try {
           second = await readPair(secondChoice);
         } catch (e) {
@@ -768,7 +768,7 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
   designSelect.addEventListener('change', () => scheduler.now());
 
   // ---- write buttons ------------------------------------------------------------------------------------------
-  function refsOf(reads: [ColumnRead, ColumnRead], c: PairChoice): [ColumnRef, ColumnRef] {
+  function refsOf(reads: [NumericColumnRead, NumericColumnRead], c: PairChoice): [ColumnRef, ColumnRef] {
     return [{ source: c.x, block: dataBlock(reads[0]) }, { source: c.y, block: dataBlock(reads[1]) }];
   }
 

@@ -14,6 +14,7 @@ import { runChecks } from '../src/stats/checks/run-checks';
 import type { CheckRow } from '../src/stats/checks/check-report';
 import { CorrelationResult, Method, StatsInputError } from '../src/stats/types';
 import { drawSample } from './draw-sample';
+import { ranksAmong, typeSevenQuantiles } from './order-stats';
 import type { PairedRows } from './pairs';
 import { readCorrelation } from './reading';
 
@@ -93,36 +94,6 @@ export function plottingPosition(rank: number, n: number): number {
   return (rank + 1 - a) / (n + 1 - 2 * a);
 }
 
-/** Value at a given probability from sorted data (R's quantile type 7, Hyndman & Fan 1996, Am. Stat. 50:361-365). */
-function sortedQuantile(sorted: ArrayLike<number>, p: number): number {
-  const h = (sorted.length - 1) * p;
-  const lo = Math.floor(h);
-  const hi = Math.min(sorted.length - 1, lo + 1);
-  return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
-}
-
-/**
- * Rank (0-based) of a value in sorted data: the middle of its run of ties, so tied residuals share one
- * plotting position (as with average ranks).
- */
-export function rankIn(sorted: Float64Array, v: number): number {
-  let lo = 0;
-  let hi = sorted.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >>> 1;
-    if (sorted[mid] < v) lo = mid + 1;
-    else hi = mid;
-  }
-  const first = lo;
-  hi = sorted.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >>> 1;
-    if (sorted[mid] <= v) lo = mid + 1;
-    else hi = mid;
-  }
-  return (first + lo - 1) / 2;
-}
-
 const now = (): number => (typeof performance !== 'undefined' ? performance.now() : Date.now());
 
 /**
@@ -138,12 +109,9 @@ export function analyseRelationship(p: PairedRows, opts: RelationshipOptions): R
     const report = runChecks(x, y, { alpha: opts.alpha, rows });
     const pts = report.points;
 
-    // Sorted residuals (native numeric sort) for the Q-Q abscissae and the quartile line.
-    const sortedResiduals = Float64Array.from(pts.residuals).sort();
     // Chambers, Cleveland, Kleiner & Tukey (1983), Graphical Methods for Data Analysis, sec. 6.3: the reference
     // line through the first and third quartiles (as R's qqline).
-    const q1 = sortedQuantile(sortedResiduals, 0.25);
-    const q3 = sortedQuantile(sortedResiduals, 0.75);
+    const [q1, q3] = typeSevenQuantiles(pts.residuals, [0.25, 0.75]);
     const z1 = normalQuantile(0.25);
     const z3 = normalQuantile(0.75);
     const qqSlope = (q3 - q1) / (z3 - z1);
@@ -168,6 +136,8 @@ export function analyseRelationship(p: PairedRows, opts: RelationshipOptions): R
       cooksDistance: new Float64Array(m),
       leverage: new Float64Array(m),
     };
+    // Ranks of the drawn residuals among all n residuals, for their Q-Q abscissae.
+    const ranks = ranksAmong(pts.residuals, Float64Array.from(pick, (i) => pts.residuals[i]));
     for (let k = 0; k < m; k++) {
       const i = pick[k];
       drawn.rows[k] = rows[i];
@@ -175,7 +145,7 @@ export function analyseRelationship(p: PairedRows, opts: RelationshipOptions): R
       drawn.y[k] = y[i];
       drawn.fitted[k] = pts.fitted[i];
       drawn.residuals[k] = pts.residuals[i];
-      drawn.normalScore[k] = normalQuantile(plottingPosition(rankIn(sortedResiduals, pts.residuals[i]), n));
+      drawn.normalScore[k] = normalQuantile(plottingPosition(ranks[k], n));
       drawn.flags[k] = reason[i];
       drawn.studentized[k] = pts.studentized[i];
       drawn.cooksDistance[k] = pts.cooksDistance[i];

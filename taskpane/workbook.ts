@@ -3,6 +3,12 @@
  * Excel) and the workbench's grid (workbench/). Rendering never calls a host directly: only through this.
  *
  * Addresses are A1-style with a sheet, e.g. "Staff!B2:B49". Row numbers are sheet rows (1-based).
+ *
+ * Changes (additive; existing implementations keep working unchanged):
+ * - readColumnNumbers (optional): a column's data cells as a Float64Array, for hosts that hold their cells in a
+ *   form that gives numbers without building one JavaScript array per row. At 100,000 rows those per-row arrays
+ *   are most of the garbage a redraw makes (the collector copying them dominated the redraw time); the panel
+ *   uses this method when present and readColumn otherwise.
  */
 
 /** A rectangular block of cells read from the workbook. */
@@ -29,6 +35,21 @@ export type ColumnSource =
   | { kind: 'range'; address: string }
   | { kind: 'table'; table: string; column: string };
 
+/** A column's data cells as numbers: the fast path of Workbook.readColumnNumbers. */
+export interface NumericColumnRead {
+  /** Address of the data cells (header excluded), with sheet. */
+  address: string;
+  sheet: string;
+  /** Sheet row (1-based) of numbers[0], and the column (1-based). */
+  firstRow: number;
+  column: number;
+  /** The header: the table column's name, the text of a range's first cell, or else the address. */
+  header: string;
+  /** One entry per data cell in sheet order: the cell's value when it is a finite number, else NaN (blank, text,
+   *  TRUE/FALSE, error: the same cells readColumn's caller would skip). */
+  numbers: Float64Array;
+}
+
 export interface Workbook {
   /** Address of the current selection (may span several columns). */
   getSelection(): Promise<string>;
@@ -36,6 +57,9 @@ export interface Workbook {
   listTables(): Promise<TableInfo[]>;
   /** Reads a column source; for a range the header is the first cell when it is text, else the address. */
   readColumn(source: ColumnSource): Promise<RangeRead & { header: string }>;
+  /** Optional fast path for readColumn (see the note at the top). For a range, a text first cell is the header
+   *  and not data, exactly as with readColumn. */
+  readColumnNumbers?(source: ColumnSource): Promise<NumericColumnRead>;
   /** Reads any range by address. */
   readRange(address: string): Promise<RangeRead>;
   /** Calls onChange (possibly many times; the caller debounces) when any watched source may have changed.

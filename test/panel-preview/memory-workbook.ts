@@ -4,7 +4,7 @@
  * cells written.
  */
 import { columnLetters, formatBlock, parseAddress } from '../../taskpane/address';
-import type { ColumnSource, RangeRead, TableInfo, Workbook } from '../../taskpane/workbook';
+import type { ColumnSource, NumericColumnRead, RangeRead, TableInfo, Workbook } from '../../taskpane/workbook';
 
 export interface MemoryTable {
   name: string;
@@ -55,6 +55,46 @@ export class MemoryWorkbook implements Workbook {
     const first = read.values[0]?.[0];
     return { ...read, header: typeof first === 'string' && first !== '' ? first : read.address };
   }
+
+  /** Offer the numeric fast path (Workbook.readColumnNumbers); off to time the plain readColumn route. */
+  numericFastPath = true;
+
+  readColumnNumbers?: (source: ColumnSource) => Promise<NumericColumnRead> = async (source) => {
+    if (!this.numericFastPath) throw new Error('numeric fast path is off');
+    let sheet: string;
+    let firstRow: number;
+    let lastRow: number;
+    let column: number;
+    let header: string;
+    if (source.kind === 'table') {
+      const t = this.tables.find((k) => k.name === source.table);
+      if (!t) throw new Error(`no table ${source.table}`);
+      const c = t.columns.indexOf(source.column);
+      if (c < 0) throw new Error(`no column ${source.column} in ${t.name}`);
+      sheet = t.sheet;
+      column = t.firstColumn + c;
+      firstRow = t.headerRow + 1;
+      lastRow = this.sheets.get(sheet)!.length;
+      header = source.column;
+    } else {
+      const b = parseAddress(source.address)![0];
+      sheet = b.sheet;
+      column = b.firstColumn;
+      firstRow = b.firstRow;
+      lastRow = Math.min(b.lastRow, Math.max(b.firstRow, this.sheets.get(sheet)?.length ?? 0));
+      const first = this.sheets.get(sheet)?.[firstRow - 1]?.[column - 1];
+      header = typeof first === 'string' && first !== '' ? first : source.address;
+      if (header !== source.address) firstRow++;
+    }
+    const grid = this.sheets.get(sheet) ?? [];
+    const numbers = new Float64Array(Math.max(0, lastRow - firstRow + 1));
+    for (let r = firstRow; r <= lastRow; r++) {
+      const v = grid[r - 1]?.[column - 1];
+      numbers[r - firstRow] = typeof v === 'number' && Number.isFinite(v) ? v : NaN;
+    }
+    const address = formatBlock({ sheet, firstRow, lastRow: Math.max(firstRow, lastRow), firstColumn: column, lastColumn: column });
+    return { address, sheet, firstRow, column, header, numbers };
+  };
 
   async readRange(address: string): Promise<RangeRead> {
     const b = parseAddress(address)?.[0];

@@ -5,16 +5,17 @@
  */
 import * as fs from 'fs';
 import * as path from 'path';
-import { computeComparison, dataBlock, isCompareFailure, CompareView } from '../../../taskpane/compare-view';
+import { computeComparison, isCompareFailure, CompareView } from '../../../taskpane/compare-view';
 import { detectDesign } from '../../../taskpane/design';
-import type { ColumnRead } from '../../../taskpane/pairs';
+import { dataBlock, numericColumn } from '../../../taskpane/pairs';
+import type { NumericColumnRead } from '../../../taskpane/workbook';
 
 const R = JSON.parse(fs.readFileSync(path.resolve(__dirname, '../../fixtures/panel/panel-r.json'), 'utf8')).compare;
 const rel = (a: number, b: number): number => Math.abs(a - b) / Math.abs(b);
 
 /** A table column on a sheet: header in row 1, data from row 2. */
-function col(sheet: string, column: number, header: string, data: number[]): ColumnRead {
-  return { address: `${sheet}!col${column}`, sheet, firstRow: 1, firstColumn: column, values: [[header], ...data.map((v) => [v])], header };
+function col(sheet: string, column: number, header: string, data: number[]): NumericColumnRead {
+  return numericColumn({ address: `${sheet}!col${column}`, sheet, firstRow: 1, firstColumn: column, values: [[header], ...data.map((v) => [v])], header });
 }
 
 const J = col('Same', 1, 'j', R.j);
@@ -24,7 +25,7 @@ const M = col('Same', 4, 'm', R.m);
 const J2 = col('Other', 1, 'j', R.j2);
 const K2 = col('Other', 2, 'k', R.k2);
 
-function run(a: [ColumnRead, ColumnRead], b: [ColumnRead, ColumnRead]): CompareView {
+function run(a: [NumericColumnRead, NumericColumnRead], b: [NumericColumnRead, NumericColumnRead]): CompareView {
   const det = detectDesign([dataBlock(a[0]), dataBlock(a[1])], [dataBlock(b[0]), dataBlock(b[1])]);
   const v = computeComparison(a, b, det.design!, det, 0.95);
   if (isCompareFailure(v)) throw new Error(v.error);
@@ -41,7 +42,7 @@ test('independent groups (another sheet): r1, r2, z, p as psych::r.test(n, r12, 
 });
 
 test('one column in common, in either position: Williams t as psych::r.test(n, r12, r13, r23)', () => {
-  for (const b of [[J, H], [H, J]] as [ColumnRead, ColumnRead][]) {
+  for (const b of [[J, H], [H, J]] as [NumericColumnRead, NumericColumnRead][]) {
     const v = run([J, K], b);
     expect(v.design).toBe('shared');
     expect(rel(v.result.r1, R.shared.r1)).toBeLessThan(1e-9);
@@ -75,7 +76,7 @@ test('a shared-variable override without a common column says so', () => {
 });
 
 test('too few rows gives the core message', () => {
-  const tiny = (c: ColumnRead): ColumnRead => ({ ...c, values: c.values.slice(0, 4) });
+  const tiny = (c: NumericColumnRead): NumericColumnRead => ({ ...c, numbers: c.numbers.slice(0, 3) });
   const v = computeComparison([tiny(J), tiny(K)], [J2, K2], 'independent', { design: 'independent', why: '' }, 0.95);
   expect(isCompareFailure(v) && v.error).toMatch(/at least 4/);
 });

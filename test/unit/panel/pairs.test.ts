@@ -1,6 +1,10 @@
 /** Pairing columns read from the workbook. The rule for what counts is the cell functions' documented rule
  * (src/functions/cells.ts): finite numbers count; blanks, text, booleans and errors are skipped pairwise. */
-import { ColumnRead, completeRows, dataStart, pairColumns, PairingError } from '../../../taskpane/pairs';
+import { ColumnRead, completeRows, dataStart, numericColumn, pairColumns as pairNumeric, PairingError, readNumericColumn } from '../../../taskpane/pairs';
+import type { NumericColumnRead, Workbook } from '../../../taskpane/workbook';
+
+/** Pairs two readColumn results through the same conversion the panel uses. */
+const pairColumns = (x: ColumnRead, y: ColumnRead) => pairNumeric(numericColumn(x), numericColumn(y));
 
 function column(sheet: string, firstRow: number, firstColumn: number, cells: unknown[], header?: string): ColumnRead {
   const address = `${sheet}!R${firstRow}C${firstColumn}`;
@@ -54,6 +58,25 @@ describe('pairColumns', () => {
     expect(() => pairColumns(column('S', 2, 1, [1, 2, 3]), column('S', 3, 2, [1, 2, 3]))).toThrow(/different rows/);
     const wide: ColumnRead = { ...column('S', 2, 1, [1, 2]), values: [[1, 2], [3, 4]] };
     expect(() => pairColumns(wide, column('S', 2, 3, [1, 2]))).toThrow(/more than one column/);
+  });
+});
+
+describe('readNumericColumn', () => {
+  test("uses the host's numeric fast path when it has one, else converts readColumn", async () => {
+    const fast: NumericColumnRead = { address: 'S!A2:A3', sheet: 'S', firstRow: 2, column: 1, header: 'h', numbers: Float64Array.of(1, NaN) };
+    const calls: string[] = [];
+    const base = {
+      readColumn: async () => {
+        calls.push('readColumn');
+        return column('S', 1, 1, ['h', 1, 'x']);
+      },
+    } as unknown as Workbook;
+    const converted = await readNumericColumn(base, { kind: 'range', address: 'S!A1:A3' });
+    expect(Array.from(converted.numbers)).toEqual([1, NaN]);
+    expect(converted.firstRow).toBe(2);
+    const withFast = { ...base, readColumnNumbers: async () => fast } as unknown as Workbook;
+    expect(await readNumericColumn(withFast, { kind: 'range', address: 'S!A1:A3' })).toBe(fast);
+    expect(calls).toEqual(['readColumn']);
   });
 });
 

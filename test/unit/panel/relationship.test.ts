@@ -5,7 +5,7 @@
  */
 import * as fs from 'fs';
 import * as path from 'path';
-import { analyseRelationship, FLAG_OUTLIER, isFailure, plottingPosition, rankIn, RelationshipView } from '../../../taskpane/relationship';
+import { analyseRelationship, FLAG_OUTLIER, isFailure, plottingPosition, RelationshipView } from '../../../taskpane/relationship';
 import type { PairedRows } from '../../../taskpane/pairs';
 
 const R = JSON.parse(fs.readFileSync(path.resolve(__dirname, '../../fixtures/panel/panel-r.json'), 'utf8'));
@@ -31,13 +31,6 @@ describe('Q-Q plot geometry', () => {
   test('plotting positions equal R ppoints(5) and ppoints(20) (a = 3/8 up to 10 points, 1/2 above)', () => {
     R.ppoints5.forEach((p: number, i: number) => expect(rel(plottingPosition(i, 5), p)).toBeLessThan(1e-15));
     R.ppoints20.forEach((p: number, i: number) => expect(rel(plottingPosition(i, 20), p)).toBeLessThan(1e-15));
-  });
-
-  test('rankIn gives 0-based ranks, ties at the middle of their run', () => {
-    const s = Float64Array.of(1, 2, 2, 2, 5);
-    expect(rankIn(s, 1)).toBe(0);
-    expect(rankIn(s, 2)).toBe(2);
-    expect(rankIn(s, 5)).toBe(4);
   });
 
   test("Anscombe's set 1 residuals: abscissae equal R qqnorm(e)$x and the line equals R's qqline rule", () => {

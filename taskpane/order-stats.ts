@@ -1,0 +1,101 @@
+/**
+ * Order statistics without sorting all n values: the panel needs the quartiles of the residuals (Q-Q reference
+ * line) and the ranks of the few thousand drawn residuals among all of them (Q-Q abscissae). Sorting 100,000
+ * values on every redraw costs more than everything else the panel computes, so:
+ * - quantiles come from selection, O(n) on average (Hoare 1961, "Algorithm 65: FIND", Comm. ACM 4:321);
+ * - ranks of m drawn values among n come from one pass with a binary search each, O(n log m).
+ * Pure.
+ */
+
+/** The k-th smallest (0-based) of `a`, reordering `a` in place (Hoare's selection). */
+export function selectKth(a: Float64Array, k: number): number {
+  let lo = 0;
+  let hi = a.length - 1;
+  while (hi > lo) {
+    const pivot = a[(lo + hi) >>> 1];
+    let i = lo;
+    let j = hi;
+    while (i <= j) {
+      while (a[i] < pivot) i++;
+      while (a[j] > pivot) j--;
+      if (i <= j) {
+        const t = a[i];
+        a[i] = a[j];
+        a[j] = t;
+        i++;
+        j--;
+      }
+    }
+    if (k <= j) hi = j;
+    else if (k >= i) lo = i;
+    else break;
+  }
+  return a[k];
+}
+
+/**
+ * Sample quantiles by R's default rule (type 7: Hyndman & Fan 1996, "Sample quantiles in statistical packages",
+ * The American Statistician 50:361-365): x[floor(h)] + (h - floor(h)) (x[floor(h) + 1] - x[floor(h)]),
+ * h = (n - 1) p on the sorted values. Values must not be NaN.
+ * @example typeSevenQuantiles([1, 2, 3, 4], [0.25, 0.75]) // [1.75, 3.25]
+ */
+export function typeSevenQuantiles(values: ArrayLike<number>, probabilities: number[]): number[] {
+  const n = values.length;
+  if (n === 0) return probabilities.map(() => NaN);
+  const work = Float64Array.from(values);
+  return probabilities.map((p) => {
+    const h = (n - 1) * p;
+    const lo = Math.floor(h);
+    const a = selectKth(work, lo);
+    if (lo + 1 >= n || h === lo) return a;
+    // After selecting lo, everything right of it is >= a: the next order statistic is their minimum.
+    let b = Infinity;
+    for (let i = lo + 1; i < n; i++) if (work[i] < b) b = work[i];
+    return a + (h - lo) * (b - a);
+  });
+}
+
+/** Index of the first element of sorted `s` that is >= v. */
+function bound(s: Float64Array, v: number): number {
+  let lo = 0;
+  let hi = s.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >>> 1;
+    if (s[mid] < v) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
+}
+
+/**
+ * The rank (0-based) of each of `subset` among `all`, ties at the middle of their run (so tied values share one
+ * plotting position, as with average ranks). Each subset value must occur in `all`.
+ * @example ranksAmong([5, 1, 3, 3, 9], [3, 9]) // [1.5, 4]
+ */
+export function ranksAmong(all: ArrayLike<number>, subset: ArrayLike<number>): Float64Array {
+  const m = subset.length;
+  const order = Array.from({ length: m }, (_, j) => j).sort((p, q) => subset[p] - subset[q]);
+  const sorted = Float64Array.from(order, (j) => subset[j]);
+  // below[j]: how many of `all` are < sorted[j]; atMost[j]: how many are <= sorted[j]. A value v of `all` is below
+  // sorted[j] exactly when j >= (first index with sorted > v), and at most sorted[j] when j >= (first with >= v).
+  const firstAbove = new Float64Array(m + 1);
+  const firstAtLeast = new Float64Array(m + 1);
+  for (let i = 0; i < all.length; i++) {
+    const v = all[i];
+    const atLeast = bound(sorted, v);
+    // Ties with drawn values are rare: walk past them instead of a second binary search.
+    let above = atLeast;
+    while (above < m && sorted[above] === v) above++;
+    firstAtLeast[atLeast]++;
+    firstAbove[above]++;
+  }
+  const out = new Float64Array(m);
+  let below = 0;
+  let atMost = 0;
+  for (let j = 0; j < m; j++) {
+    below += firstAbove[j];
+    atMost += firstAtLeast[j];
+    out[order[j]] = (below + atMost - 1) / 2;
+  }
+  return out;
+}
