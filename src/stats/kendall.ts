@@ -44,12 +44,18 @@ export function kendallCounts(x: ArrayLike<number>, y: ArrayLike<number>): Kenda
   // Lexicographic (x, y) order: stable sort by x of the y-sorted order.
   const byY = argsort(y);
   const order = argsort(x, byY);
+  // Dense ranks of y (equal values share a rank): the merge sort then moves 32-bit integers, not doubles.
+  const yRank = new Int32Array(n);
+  for (let i = 0, r = 0; i < n; i++) {
+    if (i > 0 && y[byY[i]] !== y[byY[i - 1]]) r++;
+    yRank[byY[i]] = r;
+  }
   let tiedX = 0;
   let tiedXY = 0;
   const xTie = emptySums();
-  // y in (x, y) order, to be merge-sorted.
-  let a = new Float64Array(n);
-  for (let i = 0; i < n; i++) a[i] = y[order[i]];
+  // y ranks in (x, y) order, to be merge-sorted.
+  let a = new Int32Array(n);
+  for (let i = 0; i < n; i++) a[i] = yRank[order[i]];
   let i = 0;
   while (i < n) {
     let j = i + 1;
@@ -71,10 +77,25 @@ export function kendallCounts(x: ArrayLike<number>, y: ArrayLike<number>): Kenda
     }
     i = j;
   }
-  // Bottom-up merge sort of a, counting strict inversions.
-  let b = new Float64Array(n);
+  // Strict inversions: insertion sort of short runs (cache-friendly; each shift is one inversion), then
+  // bottom-up merging, counting the left elements a smaller right element jumps over.
   let discordant = 0;
-  for (let width = 1; width < n; width *= 2) {
+  const RUN = 32;
+  for (let lo = 0; lo < n; lo += RUN) {
+    const hi = Math.min(lo + RUN, n);
+    for (let k = lo + 1; k < hi; k++) {
+      const v = a[k];
+      let m = k - 1;
+      while (m >= lo && a[m] > v) {
+        a[m + 1] = a[m];
+        m--;
+      }
+      a[m + 1] = v;
+      discordant += k - 1 - m;
+    }
+  }
+  let b = new Int32Array(n);
+  for (let width = RUN; width < n; width *= 2) {
     for (let lo = 0; lo < n; lo += 2 * width) {
       const mid = Math.min(lo + width, n);
       const hi = Math.min(lo + 2 * width, n);

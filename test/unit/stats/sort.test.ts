@@ -25,3 +25,10 @@ test.each([5, 63, 64, 65, 1000, 32767, 32768, 100000])('stable ascending order, 
 test('average ranks of a small example by hand: ties share the mean of their ranks', () => {
   expect(Array.from(averageRanks([10, 20, 20, 30, 20]))).toEqual([1, 3, 3, 5, 3]);
 });
+
+test.each([100, 5000, 70000])('decimal columns (one-word keys) sort as the definition, n = %i', (n) => {
+  const u = lcg(n + 1);
+  const v = Float64Array.from({ length: n }, () => Math.round((u() - 0.3) * 1e6) / 100);
+  const ref = Array.from({ length: n }, (_, i) => i).sort((a, b) => v[a] - v[b]);
+  expect(Array.from(argsort(v))).toEqual(ref);
+});
