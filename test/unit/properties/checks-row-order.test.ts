@@ -15,6 +15,15 @@ const RUNS = Number(process.env.COVARY_PROPERTY_RUNS ?? 80);
 const ROW_ORDER = /row order|durbin|watson/i;
 const invocation = (n: number) => ({ parameterAddresses: [`Sheet1!B2:B${n + 1}`, `Sheet1!C2:C${n + 1}`, null], address: 'Sheet1!E2' });
 
+/**
+ * 1e-9 relative, except for a studentized residual above 1,000: the other rows then lie on a line to within
+ * rounding, and the leave-one-out spread behind the statistic is a difference of nearly equal sums, good to about
+ * 1e-7 (a fixed case in found-inputs.test.ts holds the accurate value).
+ */
+function tolerance(label: string, u: number, v: number): number {
+  return /outlier/i.test(label) && Math.max(Math.abs(u), Math.abs(v)) > 1000 ? 1e-6 : 1e-9;
+}
+
 const shuffledCase = cleanColumns(2, 6, 40).chain(([x, y]) => fc.tuple(fc.constant([x, y] as const), permutation(x.length)));
 
 (isRegistered('CHECKS') ? describe : describe.skip)('CHECKS under a shuffle of the rows', () => {
@@ -31,7 +40,7 @@ const shuffledCase = cleanColumns(2, 6, 40).chain(([x, y]) => fc.tuple(fc.consta
         // An exact straight line leaves residuals of rounding size only, whose pattern depends on summation order:
         // that case is a fixed input in found-inputs.test.ts rather than left to chance here.
         const r = callCell('COEF', [col(x), col(y), null]);
-        if (r.kind === 'value' && Math.abs(r.value as number) > 1 - 1e-9) return;
+        if (r.kind === 'value' && Math.abs(r.value as number) > 1 - 1e-6) return;
         const ra = a.value as unknown[][];
         const rb = b.value as unknown[][];
         expect(rb.map((r) => r[0])).toEqual(ra.map((r) => r[0]));
@@ -50,7 +59,7 @@ const shuffledCase = cleanColumns(2, 6, 40).chain(([x, y]) => fc.tuple(fc.consta
             let u = row[c];
             let v = other[c];
             if (signless && typeof u === 'number' && typeof v === 'number') [u, v] = [Math.abs(u), Math.abs(v)];
-            const same = typeof u === 'number' && typeof v === 'number' ? close(u, v, 1e-9, 1e-13) : u === v;
+            const same = typeof u === 'number' && typeof v === 'number' ? close(u, v, tolerance(String(row[0]), u, v), 1e-13) : u === v;
             if (!same) problems.push(`${row[0]} column ${c}: ${String(u)} vs ${String(v)}`);
           }
           const p = row[3];
@@ -70,6 +79,8 @@ const shuffledCase = cleanColumns(2, 6, 40).chain(([x, y]) => fc.tuple(fc.consta
     fc.assert(
       fc.property(shuffledCase, ([[x, y], perm]) => {
         const n = x.length;
+        const r = callCell('COEF', [col(x), col(y), null]);
+        if (r.kind === 'value' && Math.abs(r.value as number) > 1 - 1e-6) return; // exact fits: see the CHECKS test
         const a = callCell('REPORT', [col(x), col(y), null, null, invocation(n)]);
         const b = callCell('REPORT', [col(perm.map((k) => x[k])), col(perm.map((k) => y[k])), null, null, invocation(n)]);
         if (a.kind !== 'value' || b.kind !== 'value') {

@@ -106,3 +106,22 @@ describe('units that differ by about 1e308 between x and y (each value within 1e
     });
   });
 });
+
+(isRegistered('CHECKS') ? describe : describe.skip)('CHECKS: a huge studentized residual does not depend on row order', () => {
+  // 18 rows, all 0 but x = 0.046122331575141125 in row 8 and y = 33.63497555062446 in row 7 and -0.0010070694050302589
+  // in row 17: the other rows lie exactly on a line, so one row's externally studentized residual is about 1.3e5.
+  // Its leave-one-out spread must be computed without cancellation: the same value (to 1e-9) in any row order.
+  const x = [0, 0, 0, 0, 0, 0, 0, 0.046122331575141125, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0];
+  const y = [0, 0, 0, 0, 0, 0, 33.63497555062446, 0, 0, 0, 0, 0, 0, 0, 0, 0, -0.0010070694050302589, 0];
+  const perm = [13, 2, 3, 4, 5, 12, 7, 8, 9, 10, 11, 16, 6, 14, 15, 1, 17, 0];
+  const inv = { parameterAddresses: ['Sheet1!B2:B19', 'Sheet1!C2:C19', null], address: 'Sheet1!E2' };
+  test('the outlier statistic agrees to 1e-9 between the two orders', () => {
+    const a = callCell('CHECKS', [col(x), col(y), null, inv]);
+    const b = callCell('CHECKS', [col(perm.map((k) => x[k])), col(perm.map((k) => y[k])), null, inv]);
+    if (a.kind !== 'value' || b.kind !== 'value') throw new Error(`${describeOutcome(a)} vs ${describeOutcome(b)}`);
+    const outlier = (v: unknown) => (v as unknown[][]).find((r) => /outlier/i.test(String(r[0])))!;
+    const [sa, sb] = [outlier(a.value)[2], outlier(b.value)[2]];
+    expect(typeof sa).toBe('number');
+    expectRel(Math.abs(sb as number), Math.abs(sa as number), 1e-9, 'largest studentized residual');
+  });
+});

@@ -56,7 +56,7 @@ describe('a + b*x', () => {
     fc.integer({ min: 4, max: 40 }).chain((n) =>
       fc.tuple(
         fc.array(fc.integer({ min: -(2 ** 20), max: 2 ** 20 }), { minLength: n, maxLength: n }),
-        fc.array(fc.double({ min: -1000, max: 1000, noNaN: true }), { minLength: n, maxLength: n }),
+        fc.array(fc.noBias(fc.double({ min: -1000, max: 1000, noNaN: true })), { minLength: n, maxLength: n }),
       ),
     ),
     fc.integer({ min: -(2 ** 20), max: 2 ** 20 }),
@@ -77,7 +77,9 @@ describe('a + b*x', () => {
         }
         const r0 = before.value as number;
         const r1 = after.value as number;
-        expectNone(answerDifferences(r1, sign * r0, 1e-12, 0), `r(a + b x) with a = ${a}, b = ${b}`);
+        // 1e-12 relative, plus n * 2^-52 absolute: the rounding left in the co-moment sums is at most about n units
+        // of 2^-53 of sum |dx dy| <= sqrt(Sxx Syy) (Cauchy-Schwarz), whatever r is, so a tiny r is only good to that.
+        expectNone(answerDifferences(r1, sign * r0, 1e-12, x.length * 2 ** -52), `r(a + b x) with a = ${a}, b = ${b}`);
 
         const mirror = (t: string) => (sign > 0 ? t : t === 'positive' ? 'negative' : t === 'negative' ? 'positive' : t);
         for (const tail of TAILS) {
@@ -140,7 +142,10 @@ function checksDifferences(a: unknown, b: unknown): string[] {
       let u = row[c];
       let v = rb[i][c];
       if (signless && typeof u === 'number' && typeof v === 'number') [u, v] = [Math.abs(u), Math.abs(v)];
-      out.push(...answerDifferences(u, v, 1e-9, 1e-13).map((d) => `${String(row[0])} column ${c}: ${d}`));
+      // A studentized residual above 1,000 comes from a leave-one-out spread computed as a difference of nearly
+      // equal sums (the other rows on a line to rounding): good to about 1e-7 (fixed case in found-inputs.test.ts).
+      const rel = signless && typeof u === 'number' && typeof v === 'number' && Math.max(Math.abs(u), Math.abs(v)) > 1000 ? 1e-6 : 1e-9;
+      out.push(...answerDifferences(u, v, rel, 1e-13).map((d) => `${String(row[0])} column ${c}: ${d}`));
     }
     const nearAlpha = typeof row[3] === 'number' && Math.abs(row[3] - 0.05) < 1e-9;
     if (row[4] !== rb[i][4] && !nearAlpha) out.push(`${String(row[0])} verdict ${String(row[4])} vs ${String(rb[i][4])}`);

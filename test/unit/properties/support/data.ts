@@ -2,6 +2,11 @@
  * Clean paired data for invariance properties: columns of one length, values 0 or of magnitude 1e-3 to 200 (so
  * that power-of-two rescaling by up to 2^±900 stays in the normal floating-point range), sometimes on a coarse grid
  * so that ties occur (ranks and Kendall's tau-b with ties are exercised too).
+ *
+ * The values are drawn without fast-check's bias towards edge values (0, ±1, tiny numbers), which otherwise makes
+ * columns of mostly zeros: data lying on a line to within rounding, where an answer is only as accurate as the
+ * problem is well-conditioned, not to the 1e-9 these properties ask. Such data are kept as fixed cases with their
+ * own expectations (found-inputs.test.ts).
  */
 import fc from 'fast-check';
 
@@ -11,11 +16,11 @@ export function cleanColumns(count: number, minRows = 4, maxRows = 40): fc.Arbit
     .tuple(
       fc.integer({ min: minRows, max: maxRows }),
       fc.boolean(), // coarse grid: ties
-      fc.array(fc.double({ min: -1, max: 1, noNaN: true }), { minLength: count, maxLength: count }),
+      fc.array(fc.noBias(fc.double({ min: -1, max: 1, noNaN: true })), { minLength: count, maxLength: count }),
     )
     .chain(([n, grid, weights]) =>
       fc
-        .array(fc.array(fc.double({ min: -1, max: 1, noNaN: true }), { minLength: n, maxLength: n }), {
+        .array(fc.array(fc.noBias(fc.double({ min: -1, max: 1, noNaN: true })), { minLength: n, maxLength: n }), {
           minLength: count + 1,
           maxLength: count + 1,
         })
