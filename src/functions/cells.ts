@@ -49,8 +49,8 @@ export function vectorLength(range: CellRange, name: string): number {
 }
 
 /** Reads one single-row or single-column range into a Float64Array with NaN for cells that do not count. */
-export function readVector(range: CellRange, name: string): Float64Array {
-  const n = vectorLength(range, name);
+export function readVector(range: CellRange, name: string, limit = Infinity): Float64Array {
+  const n = Math.min(vectorLength(range, name), limit);
   const out = new Float64Array(n);
   if (range.length === 1) {
     const row = range[0];
@@ -78,7 +78,7 @@ export function readPairs(xRange: CellRange, yRange: CellRange, xName = 'x', yNa
 }
 
 /** Pairs two vectors already read (NaN marks a cell that does not count). */
-export function readPairsFromVectors(xs: Float64Array, ys: Float64Array, xName = 'x', yName = 'y'): PairedColumns {
+export function readPairsFromVectors(xs: Float64Array, ys: Float64Array, xName = 'x', yName = 'y', total = xs.length): PairedColumns {
   const nx = xs.length;
   if (ys.length !== nx) {
     throw new StatsInputError('unequal-length', `${xName} and ${yName} must hold the same number of cells (${nx} and ${ys.length})`);
@@ -100,7 +100,7 @@ export function readPairsFromVectors(xs: Float64Array, ys: Float64Array, xName =
       j++;
     }
   }
-  return { x, y, index, total: nx, skipped: nx - used };
+  return { x, y, index, total, skipped: total - used };
 }
 
 /** Trailing rows where both cells are 0 from which the input is taken for blanks passed as zeros. */
