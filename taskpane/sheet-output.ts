@@ -111,7 +111,7 @@ export function topLeftOf(b: CellBlock): string {
 export const REPORT_CAUTIONS = [
   'A correlation is not evidence that one variable causes the other.',
   'Small samples, or rows selected on either variable, can give a very different correlation from the whole population.',
-  'Before using this in decisions about people or money (hiring, pay, dismissal, credit, investment), check fairness and adverse-impact rules where you are, and consult qualified professionals.',
+  'Before using this in decisions about people or money (hiring, pay, dismissal, credit, investment), check fairness and adverse-impact law where you are: local law and qualified professionals have the last word.',
 ];
 
 /**
