@@ -1,3 +1,4 @@
+import { selectKth } from '../src/stats/select';
 /**
  * Which points to draw when there are more rows than a chart can show legibly. The statistics always use every
  * row; only the drawing is thinned. Pure.
@@ -19,32 +20,6 @@ export function positionHash(i: number): number {
   h = Math.imul(h, 0xc2b2ae35) >>> 0;
   h ^= h >>> 16;
   return h >>> 0;
-}
-
-/** The k-th smallest (0-based) of `a`, reordering `a` (Hoare's selection, average O(n)). */
-function selectUint(a: Uint32Array, k: number): number {
-  let lo = 0;
-  let hi = a.length - 1;
-  while (hi > lo) {
-    const pivot = a[(lo + hi) >>> 1];
-    let i = lo;
-    let j = hi;
-    while (i <= j) {
-      while (a[i] < pivot) i++;
-      while (a[j] > pivot) j--;
-      if (i <= j) {
-        const t = a[i];
-        a[i] = a[j];
-        a[j] = t;
-        i++;
-        j--;
-      }
-    }
-    if (k <= j) hi = j;
-    else if (k >= i) lo = i;
-    else break;
-  }
-  return a[k];
 }
 
 /**
@@ -98,7 +73,7 @@ export function drawSample(n: number, flagged: ArrayLike<number>, limit: number)
       for (let i = 0; i < n; i++) if (!take[i]) candidates[m++] = positionHash(i);
     }
     // The hash is a bijection on 32 bits, so distinct positions never tie: keep hashes up to the room-th smallest.
-    const threshold = selectUint(candidates.subarray(0, m), room - 1);
+    const threshold = selectKth(candidates.subarray(0, m), room - 1);
     for (let i = 0; i < n; i++) if (!take[i] && positionHash(i) <= threshold) take[i] = 2;
   }
   let count = 0;

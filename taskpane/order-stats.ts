@@ -7,31 +7,8 @@
  * Pure.
  */
 
-/** The k-th smallest (0-based) of `a`, reordering `a` in place (Hoare's selection). */
-export function selectKth(a: Float64Array, k: number): number {
-  let lo = 0;
-  let hi = a.length - 1;
-  while (hi > lo) {
-    const pivot = a[(lo + hi) >>> 1];
-    let i = lo;
-    let j = hi;
-    while (i <= j) {
-      while (a[i] < pivot) i++;
-      while (a[j] > pivot) j--;
-      if (i <= j) {
-        const t = a[i];
-        a[i] = a[j];
-        a[j] = t;
-        i++;
-        j--;
-      }
-    }
-    if (k <= j) hi = j;
-    else if (k >= i) lo = i;
-    else break;
-  }
-  return a[k];
-}
+export { selectKth } from '../src/stats/select';
+import { selectKth } from '../src/stats/select';
 
 /**
  * Sample quantiles by R's default rule (type 7: Hyndman & Fan 1996, "Sample quantiles in statistical packages",

@@ -17,6 +17,7 @@
  */
 import { argsort } from './sort';
 import { StatsInputError } from './types';
+import { selectKth } from './select';
 
 export interface LowessOptions {
   /** Fraction of the points in each local fit (Cleveland's f), in (0, 1]; default 2/3. */
@@ -87,32 +88,6 @@ function localFit(
   let fit = 0;
   for (let k = left; k <= last; k++) fit += w[k] * y[k];
   return fit;
-}
-
-/** The k-th smallest value (0-based) of `a`, reordering `a` in place (Hoare's selection, average O(n)). */
-function select(a: Float64Array, k: number): number {
-  let lo = 0;
-  let hi = a.length - 1;
-  while (hi > lo) {
-    const pivot = a[(lo + hi) >>> 1];
-    let i = lo;
-    let j = hi;
-    while (i <= j) {
-      while (a[i] < pivot) i++;
-      while (a[j] > pivot) j--;
-      if (i <= j) {
-        const t = a[i];
-        a[i] = a[j];
-        a[j] = t;
-        i++;
-        j--;
-      }
-    }
-    if (k <= j) hi = j;
-    else if (k >= i) lo = i;
-    else break;
-  }
-  return a[k];
 }
 
 /** One pass of local fits over all sorted points, with delta skipping and interpolation. */
@@ -211,7 +186,7 @@ export function lowess(xIn: ArrayLike<number>, yIn: ArrayLike<number>, options: 
     // Six times the median absolute residual (Cleveland 1979, eq. 2.6), the bisquare's scale.
     const scratch = absResiduals.slice();
     const m1 = n >>> 1;
-    const sixMedian = n % 2 === 0 ? 3 * (select(scratch, m1) + select(scratch, n - m1 - 1)) : 6 * select(scratch, m1);
+    const sixMedian = n % 2 === 0 ? 3 * (selectKth(scratch, m1) + selectKth(scratch, n - m1 - 1)) : 6 * selectKth(scratch, m1);
     if (sixMedian < 1e-7 * meanAbs) break; // residuals effectively zero: the fit is exact
     const c9 = 0.999 * sixMedian;
     const c1 = 0.001 * sixMedian;
