@@ -1,4 +1,4 @@
-import { integrate } from './quadrature';
+import { integrate } from '../quadrature';
 
 /** The two tail probabilities of a quadratic form in standard normals at 0. */
 export interface QuadraticFormTails {
@@ -39,7 +39,7 @@ export function quadraticFormTails(weights: ArrayLike<number>): QuadraticFormTai
     const u = s / (1 - s);
     return integrand(u) / ((1 - s) * (1 - s));
   };
-  const { value } = integrate(mapped, 0, 1, 1e-13, 4000);
+  const value = integrate(mapped, 0, 1, { absTol: 1e-13, relTol: 0, maxPieces: 4000 });
   const i = value / Math.PI;
   const clip = (p: number): number => Math.min(1, Math.max(0, p));
   return { below: clip(0.5 - i), above: clip(0.5 + i) };
