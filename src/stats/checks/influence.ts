@@ -27,47 +27,70 @@ export interface LineInfluence {
 export const UNIT_LEVERAGE = 1 - 10 * Number.EPSILON;
 
 /**
+ * Sum with Neumaier's compensation (Neumaier 1974, "Rundungsfehleranalyse einiger Verfahren zur Summation endlicher
+ * Summen", Zeitschrift fuer Angewandte Mathematik und Mechanik 54:39-51): the error no longer grows with n, so the
+ * result hardly depends on the order of the terms, which is what makes the diagnostics the same in any row order.
+ */
+function compensatedSum(n: number, term: (i: number) => number): number {
+  let sum = 0;
+  let comp = 0;
+  for (let i = 0; i < n; i++) {
+    const a = term(i);
+    const t = sum + a;
+    comp += Math.abs(sum) >= Math.abs(a) ? sum - t + a : a - t + sum;
+    sum = t;
+  }
+  return sum + comp;
+}
+
+/**
  * Hat values, externally studentized residuals and Cook's distances of the line y = a + b x (Cook 1977,
  * "Detection of influential observation in linear regression", Technometrics 19:15-18; Belsley, Kuh & Welsch
  * 1980, Regression Diagnostics, Wiley, ch. 2):
  *   h_i = 1/n + c_i^2 / sum c^2 with c = x - mean x,
- *   s_(i)^2 = (RSS - e_i^2/(1 - h_i)) / (n - 3),  t_i = e_i / (s_(i) sqrt(1 - h_i)),
+ *   s_(i)^2 = RSS_(i) / (n - 3),  t_i = e_i / (s_(i) sqrt(1 - h_i)),
  *   D_i = e_i^2 h_i / (2 s^2 (1 - h_i)^2) with s^2 = RSS / (n - 2).
  * Closed forms for one predictor, so O(n) with no matrix work. x and the residuals are scaled by powers of two
- * before squaring; every quantity here is scale-free.
+ * before squaring; every quantity here is scale-free. Sums are compensated, so the answers do not depend on the
+ * row order beyond the last digit or two.
+ *
+ * Two differences of nearly equal numbers are avoided where they would cost digits:
+ * - RSS_(i) = RSS - e_i^2 / (1 - h_i) cancels when point i carries nearly all of the RSS (the other points lie
+ *   almost on a line). There it is summed directly from the leave-one-out residuals of the other points,
+ *   e_j(i) = e_j + h_ij e_i / (1 - h_i) with h_ij = 1/n + c_i c_j / sum c^2 (Belsley, Kuh & Welsch 1980, ch. 2,
+ *   the deletion formulas), a sum of squares with no cancellation. At most seven points qualify (those with
+ *   h_i > 1/2, or with e_i^2 > RSS / 4), so the total stays O(n).
+ * - 1 - h_i for a point of high leverage (h_i > 1/2, at most three points) is taken as
+ *   (n - 1)/n * Sxx_(i) / Sxx, where Sxx_(i) is the sum of squares of x about its mean without point i
+ *   (an exact identity), rather than by subtracting h_i from 1.
  * @param x the predictor
  * @param residuals least-squares residuals of y on x
+ * @param residualNoise rounding error to expect in each residual (same units as the residuals), e.g. a few
+ *   machine epsilons of the data's magnitude: when the points other than i lie on a line to within this, t_i is
+ *   +/-Infinity rather than rounding noise divided by rounding noise. 0 (the default) means exact residuals.
  * @throws StatsInputError for fewer than 3 points or a constant x.
  */
-export function lineInfluence(x: ArrayLike<number>, residuals: ArrayLike<number>): LineInfluence {
+export function lineInfluence(x: ArrayLike<number>, residuals: ArrayLike<number>, residualNoise = 0): LineInfluence {
   const n = x.length;
   if (residuals.length !== n) throw new StatsInputError('unequal-length', 'x and the residuals must have the same length');
   if (n < 3) throw new StatsInputError('too-few', 'influence diagnostics need at least 3 points');
-  let mean = 0;
-  for (let i = 0; i < n; i++) mean += x[i];
-  mean /= n;
+  const sx = powerOfTwoScale(x);
+  const mean = compensatedSum(n, (i) => x[i] / sx) / n;
   const c = new Float64Array(n);
-  for (let i = 0; i < n; i++) c[i] = x[i] - mean;
+  for (let i = 0; i < n; i++) c[i] = x[i] / sx - mean;
   const sc = powerOfTwoScale(c);
-  let cMean = 0;
-  for (let i = 0; i < n; i++) {
-    c[i] /= sc;
-    cMean += c[i];
-  }
-  cMean /= n;
-  let cc = 0;
-  for (let i = 0; i < n; i++) {
-    c[i] -= cMean;
-    cc += c[i] * c[i];
-  }
+  for (let i = 0; i < n; i++) c[i] /= sc;
+  // Second pass removes what rounding left of the mean (Chan, Golub & LeVeque 1983, as in comoments.ts).
+  const cMean = compensatedSum(n, (i) => c[i]) / n;
+  for (let i = 0; i < n; i++) c[i] -= cMean;
+  const cSum = compensatedSum(n, (i) => c[i]);
+  const cc = compensatedSum(n, (i) => c[i] * c[i]) - (cSum * cSum) / n;
   if (!(cc > 0)) throw new StatsInputError('constant', 'x is constant, so no line can be fitted');
   const se = powerOfTwoScale(residuals);
   const e = new Float64Array(n);
-  let rss = 0;
-  for (let i = 0; i < n; i++) {
-    e[i] = residuals[i] / se;
-    rss += e[i] * e[i];
-  }
+  for (let i = 0; i < n; i++) e[i] = residuals[i] / se;
+  const rss = compensatedSum(n, (i) => e[i] * e[i]);
+  const noise = residualNoise / se;
   const s2 = rss / (n - 2);
   const leverage = new Float64Array(n);
   const studentized = new Float64Array(n);
@@ -82,7 +105,11 @@ export function lineInfluence(x: ArrayLike<number>, residuals: ArrayLike<number>
       cooksDistance[i] = NaN;
       continue;
     }
-    const oneMinusH = 1 - h;
+    let oneMinusH = 1 - h;
+    if (h > 0.5) {
+      const direct = oneMinusLeverage(c, cSum, cc, i);
+      if (direct > 0) oneMinusH = direct;
+    }
     const ei2 = e[i] * e[i];
     const d = s2 > 0 ? (ei2 * h) / (2 * s2 * oneMinusH * oneMinusH) : NaN;
     cooksDistance[i] = d;
@@ -91,10 +118,29 @@ export function lineInfluence(x: ArrayLike<number>, residuals: ArrayLike<number>
       studentized[i] = NaN;
       continue;
     }
-    const deleted = rss - ei2 / oneMinusH;
+    const dropped = ei2 / oneMinusH;
+    let deleted: number;
+    // What rounding alone leaves in RSS_(i): the residuals' own noise over n - 1 points, plus a few units in the
+    // last place of the leave-one-out residuals when those are summed directly.
+    let floor = (n - 1) * noise * noise;
+    if (2 * dropped > rss) {
+      const a = e[i] / oneMinusH;
+      const ci = c[i];
+      let size = 0;
+      deleted = compensatedSum(n, (j) => {
+        if (j === i) return 0;
+        const shift = a * (1 / n + (ci * c[j]) / cc);
+        size += e[j] * e[j] + shift * shift;
+        const ej = e[j] + shift;
+        return ej * ej;
+      });
+      floor += 64 * Number.EPSILON * Number.EPSILON * size;
+    } else {
+      deleted = rss - dropped;
+    }
     let t: number;
     // Without point i the rest lie on a line (to rounding): its residual is infinitely many SDs out.
-    if (deleted <= rss * 1e-14) t = e[i] === 0 ? NaN : e[i] > 0 ? Infinity : -Infinity;
+    if (!(deleted > floor)) t = e[i] === 0 ? NaN : e[i] > 0 ? Infinity : -Infinity;
     else t = e[i] / (Math.sqrt(deleted / (n - 3)) * Math.sqrt(oneMinusH));
     studentized[i] = t;
     if (t === t && (maxStudentizedIndex < 0 || Math.abs(t) > Math.abs(studentized[maxStudentizedIndex]))) {
@@ -102,6 +148,19 @@ export function lineInfluence(x: ArrayLike<number>, residuals: ArrayLike<number>
     }
   }
   return { n, leverage, studentized, cooksDistance, maxLeverageIndex, maxStudentizedIndex, maxCookIndex };
+}
+
+/**
+ * 1 - h_i for a point of high leverage, without subtracting h_i from 1: (n - 1)/n * Sxx_(i) / Sxx, with Sxx_(i)
+ * the corrected two-pass sum of squares of the centred x about their mean without point i. O(n).
+ * @param c centred x (summing to cSum, which rounding leaves near 0); cc their sum of squares
+ */
+function oneMinusLeverage(c: Float64Array, cSum: number, cc: number, i: number): number {
+  const n = c.length;
+  const m = (cSum - c[i]) / (n - 1);
+  const dev = compensatedSum(n, (j) => (j === i ? 0 : c[j] - m));
+  const ss = compensatedSum(n, (j) => (j === i ? 0 : (c[j] - m) * (c[j] - m))) - (dev * dev) / (n - 1);
+  return ((n - 1) / n) * (ss / cc);
 }
 
 /**

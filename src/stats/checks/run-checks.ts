@@ -61,11 +61,32 @@ function safely(key: CheckKey, test: string, build: () => CheckRow): CheckRow {
   }
 }
 
-/** True when every residual is within rounding of zero: the points lie exactly on the line. */
-function liesOnLine(y: ArrayLike<number>, fit: LineFit): boolean {
-  const tol = 16 * Number.EPSILON;
+/**
+ * How far rounding alone can move a residual of this fit, the same in any row order (it depends only on the
+ * largest magnitudes and the slope). A fitted value a + b x_i rounds at about eps (max |y| + |b| max |x|), and the
+ * slope, a ratio of sums over n rows, carries an error that grows like sqrt(n) eps (the statistical rule of thumb
+ * for summation, Higham 2002, Accuracy and Stability of Numerical Algorithms, 2nd ed., SIAM, sec. 2.8), which moves
+ * a residual by at most that much times |b| (max |x| + |mean x|). 16 sqrt(n) eps leaves a wide margin over both
+ * while staying far below any scatter a measurement can show (about 1e-13 of the data's magnitude at 40 rows).
+ */
+function residualNoise(x: ArrayLike<number>, y: ArrayLike<number>, fit: LineFit): number {
+  let xMax = 0;
+  let yMax = 0;
   for (let i = 0; i < fit.n; i++) {
-    if (Math.abs(fit.residuals[i]) > tol * (Math.abs(y[i]) + Math.abs(fit.fitted[i]))) return false;
+    xMax = Math.max(xMax, Math.abs(x[i]));
+    yMax = Math.max(yMax, Math.abs(y[i]));
+  }
+  return 16 * Math.sqrt(fit.n) * Number.EPSILON * (yMax + Math.abs(fit.slope) * xMax);
+}
+
+/**
+ * True when every residual is within rounding of zero: the points lie exactly on the line. Judged against one
+ * noise level for all rows (not row by row against each value, where a zero y with a fitted value of rounding size
+ * would count as off the line in one row order and on it in another).
+ */
+function liesOnLine(fit: LineFit, noise: number): boolean {
+  for (let i = 0; i < fit.n; i++) {
+    if (Math.abs(fit.residuals[i]) > noise) return false;
   }
   return true;
 }
@@ -159,8 +180,9 @@ export function runChecks(xIn: ArrayLike<number>, yIn: ArrayLike<number>, opts: 
   const xs = scaleX === 1 ? x : x.map((v) => v / scaleX);
   const ys = scaleY === 1 ? y : y.map((v) => v / scaleY);
   const fit = fitLine(xs, ys);
-  const onLine = liesOnLine(ys, fit);
-  const infl = lineInfluence(xs, fit.residuals);
+  const noise = residualNoise(xs, ys, fit);
+  const onLine = liesOnLine(fit, noise);
+  const infl = lineInfluence(xs, fit.residuals, noise);
 
   const checks: CheckRow[] = [
     normalityRow('normal-x', xs, alpha, 3),
