@@ -86,6 +86,12 @@ export function readPairsFromVectors(xs: Float64Array, ys: Float64Array, xName =
   refuseBlanksAsZeros(xs, ys, xName, yName);
   let used = 0;
   for (let k = 0; k < nx; k++) if (xs[k] === xs[k] && ys[k] === ys[k]) used++;
+  if (used === nx) {
+    // Every row pairs (the usual case): the vectors just read are the pairs; no copy.
+    const index = new Int32Array(nx);
+    for (let k = 0; k < nx; k++) index[k] = k;
+    return { x: xs, y: ys, index, total, skipped: total - used };
+  }
   const x = new Float64Array(used);
   const y = new Float64Array(used);
   const index = new Int32Array(used);
