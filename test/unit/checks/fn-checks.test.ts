@@ -4,12 +4,12 @@
  * (1973) data of R's ?cor.test example (REFERENCES.md: r = 0.5711816, 95% CI (-0.1497426, 0.8955795),
  * p = 0.1082; Kendall tau = 0.4444444; Spearman rho = 0.6).
  */
-import { CellError } from '../../../src/functions/cells';
 import { CHECKS, FLAGS, REPORT } from '../../../src/functions/fn-checks';
 import { clearSharedPairs } from '../../../src/functions/shared-pairs';
 import { columnName, pointNaming, rangeStart } from '../../../src/functions/sheet-rows';
 import { expectRel } from '../../helpers/close';
 import { R } from './fixtures';
+import { cellError } from '../../helpers/cell-error';
 
 const col = (v: unknown[]) => v.map((a) => [a]);
 const row = (v: unknown[]) => [v];
@@ -23,16 +23,6 @@ const reportMap = (t: unknown[][]) => new Map(t.map(([label, value]) => [String(
 
 const HW_X = [44.4, 45.9, 41.9, 53.3, 44.7, 44.1, 50.7, 45.2, 60.1];
 const HW_Y = [2.6, 3.1, 2.5, 5.0, 3.6, 4.0, 5.2, 2.8, 3.8];
-
-function cellError(fn: () => unknown): CellError {
-  try {
-    fn();
-  } catch (e) {
-    if (e instanceof CellError) return e;
-    throw new Error(`expected a CellError, got ${String(e)}`);
-  }
-  throw new Error('expected an error, got a value');
-}
 
 /** Every cell is a finite number or text: no null (shows as 0), no NaN or Infinity. */
 function expectCleanCells(table: unknown[][]): void {

@@ -4,25 +4,15 @@
  * (test/fixtures/compare/compare-r.json) and from Zou (2007) as listed in REFERENCES.md.
  */
 import { DIFF_GROUPS, DIFF_REPORTED, DIFF_SEPARATE, DIFF_SHARED, MATRIX, PARTIAL } from '../../../src/functions/fn-compare';
-import { CellError } from '../../../src/functions/cells';
 import { expectRel } from '../../helpers/close';
 import { cellColumn, expectAbs, R } from './fixtures';
+import { cellError } from '../../helpers/cell-error';
 
 const N = R.data.north;
 const S = R.data.south;
 const col = (v: unknown[]) => v.map((a) => [a]);
 const omit = null as unknown as number;
 const omitText = null as unknown as string;
-
-function cellError(fn: () => unknown): CellError {
-  try {
-    fn();
-  } catch (e) {
-    if (e instanceof CellError) return e;
-    throw new Error(`expected a CellError, got ${String(e)}`);
-  }
-  throw new Error('expected an error, got a value');
-}
 
 function expectRow(row: unknown[][], ref: { lower: number; upper: number; p_both: number }, diff: number): void {
   expect(row.length).toBe(1);

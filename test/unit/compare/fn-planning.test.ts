@@ -4,23 +4,13 @@
  * the REFERENCES.md sample sizes.
  */
 import { DETECTABLE, POWER, SAMPLE_SIZE } from '../../../src/functions/fn-planning';
-import { CellError } from '../../../src/functions/cells';
 import { expectRel } from '../../helpers/close';
 import { expectAbs } from './fixtures';
 import { EXACT } from './fixtures-exact';
+import { cellError } from '../../helpers/cell-error';
 
 const omit = null as unknown as number;
 const omitText = null as unknown as string;
-
-function cellError(fn: () => unknown): CellError {
-  try {
-    fn();
-  } catch (e) {
-    if (e instanceof CellError) return e;
-    throw new Error(`expected a CellError, got ${String(e)}`);
-  }
-  throw new Error('expected an error, got a value');
-}
 
 describe('answers', () => {
   test('POWER with defaults (alpha .05, both tails) and with a tail (mpmath)', () => {

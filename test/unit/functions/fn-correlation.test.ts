@@ -4,23 +4,13 @@
  * REFERENCES.md) and from the R fixture in test/fixtures/correlation.
  */
 import { COEF, INTERVAL, PAIRS, PVALUE, REPORTED } from '../../../src/functions/fn-correlation';
-import { CellError } from '../../../src/functions/cells';
 import { expectRel } from '../../helpers/close';
+import { cellError } from '../../helpers/cell-error';
 
 const HW_X = [44.4, 45.9, 41.9, 53.3, 44.7, 44.1, 50.7, 45.2, 60.1];
 const HW_Y = [2.6, 3.1, 2.5, 5.0, 3.6, 4.0, 5.2, 2.8, 3.8];
 const col = (v: unknown[]) => v.map((a) => [a]);
 const row = (v: unknown[]) => [v];
-
-function cellError(fn: () => unknown): CellError {
-  try {
-    fn();
-  } catch (e) {
-    if (e instanceof CellError) return e;
-    throw new Error(`expected a CellError, got ${String(e)}`);
-  }
-  throw new Error('expected an error, got a value');
-}
 
 describe('answers (R cor.test, Hollander & Wolfe data)', () => {
   test('COEF, INTERVAL, PVALUE, PAIRS with defaults', () => {
