@@ -1,4 +1,4 @@
-import { argsort } from './sort';
+import { argsortKeyed, KeyedOrder } from './sort';
 import { StatsInputError } from './types';
 
 /** Everything Kendall's tau-b and its tests need, counted in O(n log n). */
@@ -42,14 +42,19 @@ export function kendallCounts(x: ArrayLike<number>, y: ArrayLike<number>): Kenda
   const n = x.length;
   if (y.length !== n) throw new StatsInputError('unequal-length', 'x and y must hold the same number of values');
   // Lexicographic (x, y) order: stable sort by x of the y-sorted order.
-  const byY = argsort(y);
-  const order = argsort(x, byY);
-  // Dense ranks of y (equal values share a rank): the merge sort then moves 32-bit integers, not doubles.
+  const sortedY = argsortKeyed(y);
+  const byY = sortedY.order;
+  const sortedX = argsortKeyed(x, byY);
+  const order = sortedX.order;
+  // Dense ranks of y (equal values share a rank): the merge sort then moves 32-bit integers, not doubles. Ties
+  // are read from the sorted keys sequentially when the radix path gave them.
   const yRank = new Int32Array(n);
+  const sameY = sameAsPrevious(sortedY, y);
   for (let i = 0, r = 0; i < n; i++) {
-    if (i > 0 && y[byY[i]] !== y[byY[i - 1]]) r++;
+    if (i > 0 && !sameY(i)) r++;
     yRank[byY[i]] = r;
   }
+  const sameX = sameAsPrevious(sortedX, x);
   let tiedX = 0;
   let tiedXY = 0;
   const xTie = emptySums();
@@ -59,8 +64,7 @@ export function kendallCounts(x: ArrayLike<number>, y: ArrayLike<number>): Kenda
   let i = 0;
   while (i < n) {
     let j = i + 1;
-    const xv = x[order[i]];
-    while (j < n && x[order[j]] === xv) j++;
+    while (j < n && sameX(j)) j++;
     const t = j - i;
     if (t > 1) {
       tiedX += (t * (t - 1)) / 2;
@@ -134,6 +138,22 @@ export function kendallCounts(x: ArrayLike<number>, y: ArrayLike<number>): Kenda
   // concordant - discordant = n0 - tiedX - tiedY + tiedXY - 2 * discordant (Knight 1966)
   const s = n0 - tiedX - tiedY + tiedXY - 2 * discordant;
   return { n, s, tiedX, tiedY, tiedXY, discordant, xTie, yTie };
+}
+
+/** Whether the i-th value in sorted order equals the (i-1)-th: from the sorted keys when present, else values. */
+function sameAsPrevious(sorted: KeyedOrder, v: ArrayLike<number>): (i: number) => boolean {
+  const w = sorted.sortedWords;
+  if (w && w.length === 1) {
+    const a = w[0];
+    return (i) => a[i] === a[i - 1];
+  }
+  if (w && w.length === 2) {
+    const lo = w[0];
+    const hi = w[1];
+    return (i) => lo[i] === lo[i - 1] && hi[i] === hi[i - 1];
+  }
+  const o = sorted.order;
+  return (i) => v[o[i]] === v[o[i - 1]];
 }
 
 /** Kendall's tau-b = S / sqrt((n0 - n1)(n0 - n2)) (Kendall 1945, "The treatment of ties in ranking problems", Biometrika 33:239-251). */

@@ -72,6 +72,19 @@ function bitKeys(keys: ArrayLike<number>, order: Uint32Array<ArrayBufferLike>): 
  * @example argsort(Float64Array.of(3, 1, 2)) // Uint32Array [1, 2, 0]
  */
 export function argsort(keys: ArrayLike<number>, initial?: Uint32Array<ArrayBufferLike>): Uint32Array<ArrayBufferLike> {
+  return argsortKeyed(keys, initial).order;
+}
+
+/** A sort's permutation with, when the radix path ran, its integer keys in sorted order (least significant word
+ *  first): equal keys mean equal values, so callers can find ties by reading these sequentially instead of
+ *  gathering the values through the permutation. */
+export interface KeyedOrder {
+  order: Uint32Array<ArrayBufferLike>;
+  sortedWords: Uint32Array<ArrayBufferLike>[] | null;
+}
+
+/** As argsort, also returning the sorted keys (see KeyedOrder). */
+export function argsortKeyed(keys: ArrayLike<number>, initial?: Uint32Array<ArrayBufferLike>): KeyedOrder {
   const n = keys.length;
   let order: Uint32Array<ArrayBufferLike>;
   if (initial) order = initial.slice();
@@ -79,7 +92,7 @@ export function argsort(keys: ArrayLike<number>, initial?: Uint32Array<ArrayBuff
     order = new Uint32Array(n);
     for (let i = 0; i < n; i++) order[i] = i;
   }
-  if (n < SMALL) return comparisonArgsort(keys, order);
+  if (n < SMALL) return { order: comparisonArgsort(keys, order), sortedWords: null };
   const single = decimalKeys(keys, order);
   // Words, least significant first; each is sorted in ceil(32 / BITS) digit passes.
   const words: Uint32Array[] = single ? [single] : (() => {
@@ -143,5 +156,5 @@ export function argsort(keys: ArrayLike<number>, initial?: Uint32Array<ArrayBuff
     idxSrc = idxDst;
     idxDst = ti;
   }
-  return idxSrc;
+  return { order: idxSrc, sortedWords: src };
 }
