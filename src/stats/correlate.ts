@@ -1,3 +1,4 @@
+import { distinctUpToThree } from './distinct';
 import { exactDiscordantTails, KendallCounts, tauB, varianceOfS } from './kendall';
 import { assertVaries, clipUnit, pearsonFromMoments } from './pearson';
 import { PreparedPairs } from './prepared';
@@ -11,25 +12,10 @@ export interface CorrelateOptions {
   level: number;
 }
 
-/** Number of distinct values, stopping at 3 (only "one", "two" or "more" matters). */
-function distinctUpTo3(v: ArrayLike<number>): number {
-  const n = v.length;
-  if (n === 0) return 0;
-  const a = v[0];
-  let b = NaN;
-  for (let i = 1; i < n; i++) {
-    const c = v[i];
-    if (c === a || c === b) continue;
-    if (b !== b) b = c;
-    else return 3;
-  }
-  return b !== b ? 1 : 2;
-}
-
 /** Pearson on two-valued columns is the point-biserial (one column two-valued) or phi (both) coefficient. */
 export function pearsonName(x: ArrayLike<number>, y: ArrayLike<number>): CoefficientName {
-  const bx = distinctUpTo3(x) === 2;
-  const by = distinctUpTo3(y) === 2;
+  const bx = distinctUpToThree(x) === 2;
+  const by = distinctUpToThree(y) === 2;
   if (bx && by) return 'phi';
   if (bx || by) return 'point-biserial';
   return 'Pearson';

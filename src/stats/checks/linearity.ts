@@ -1,6 +1,7 @@
 import { powerOfTwoScale } from '../comoments';
 import { fSf } from '../distributions';
 import { StatsInputError } from '../types';
+import { distinctUpToThree } from '../distinct';
 
 /** The F test for adding x^2 to a straight-line fit. */
 export interface CurvatureTest {
@@ -12,21 +13,6 @@ export interface CurvatureTest {
   pValue: number;
   /** Which way the points bend away from the line: "up" (convex, U-like) or "down" (concave). */
   bend: 'up' | 'down';
-}
-
-/** Number of distinct values, stopping at 3 (only "one", "two" or "three or more" matters). */
-export function distinctUpToThree(v: ArrayLike<number>): number {
-  const n = v.length;
-  if (n === 0) return 0;
-  const a = v[0];
-  let b = NaN;
-  for (let i = 1; i < n; i++) {
-    const c = v[i];
-    if (c === a || c === b) continue;
-    if (b !== b) b = c;
-    else return 3;
-  }
-  return b !== b ? 1 : 2;
 }
 
 /** Dot product. */

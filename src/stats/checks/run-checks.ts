@@ -8,7 +8,8 @@ import { dagostinoPearson } from './dagostino';
 import { durbinWatson } from './durbin-watson';
 import { formatNumber as num, formatP } from './format';
 import { bonferroniOutlierP, cookCutoff, lineInfluence, LineInfluence } from './influence';
-import { curvatureTest, distinctUpToThree } from './linearity';
+import { distinctUpToThree } from '../distinct';
+import { curvatureTest } from './linearity';
 import { shapeMoments } from './moments';
 import { SHAPIRO_WILK_MAX_N, shapiroWilk } from './shapiro-wilk';
 
