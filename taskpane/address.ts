@@ -2,10 +2,11 @@
  * A1-style addresses as the workbook hands them over ("Staff!B2:C49", "'North branch'!$B$2:$B$49", "B:B",
  * several areas joined by commas), parsed into plain blocks and written back. Pure: no host, no DOM.
  */
+import { columnLetters as sharedColumnLetters, columnNumber, MAX_COLUMNS } from '../src/functions/column-letters';
 
 /** The largest sheet in current Excel: used for whole-column and whole-row addresses. */
 export const MAX_ROWS = 1048576;
-export const MAX_COLUMNS = 16384;
+export { MAX_COLUMNS };
 
 /** A rectangular block of cells on one sheet; rows and columns are 1-based and inclusive. */
 export interface CellBlock {
@@ -20,23 +21,11 @@ export interface CellBlock {
 /** Column letters for a 1-based column number: 1 → "A", 27 → "AA". */
 export function columnLetters(column: number): string {
   if (!(Number.isInteger(column) && column >= 1 && column <= MAX_COLUMNS)) throw new RangeError(`no column number ${column}`);
-  let s = '';
-  let c = column;
-  while (c > 0) {
-    const r = (c - 1) % 26;
-    s = String.fromCharCode(65 + r) + s;
-    c = (c - 1 - r) / 26;
-  }
-  return s;
+  return sharedColumnLetters(column);
 }
 
 /** 1-based column number for letters: "A" → 1, "AA" → 27; NaN for anything else. */
-export function columnNumber(letters: string): number {
-  if (!/^[A-Za-z]{1,3}$/.test(letters)) return NaN;
-  let n = 0;
-  for (const ch of letters.toUpperCase()) n = n * 26 + (ch.charCodeAt(0) - 64);
-  return n <= MAX_COLUMNS ? n : NaN;
-}
+export { columnNumber };
 
 /** Splits "a,b" at commas outside single quotes (sheet names may hold commas). */
 function splitAreas(address: string): string[] {

@@ -3,6 +3,7 @@
  * sheet prefixes (`North!B2:B49`, `'Live formulas'!B2`) and whole columns (`B:C`).
  * Rows and columns are 1-based throughout the workbench, like the sheet the user sees.
  */
+import { columnLetters, columnNumber, MAX_COLUMNS } from '../src/functions/column-letters';
 
 /** A rectangle of cells on one sheet (inclusive bounds, 1-based). `bottom` is Infinity for whole columns. */
 export interface Area {
@@ -14,28 +15,11 @@ export interface Area {
 }
 
 /** The widest sheet a spreadsheet allows (XFD), so a typo cannot create a million-column grid. */
-export const MAX_COLUMN = 16384;
+export const MAX_COLUMN = MAX_COLUMNS;
 export const MAX_ROW = 1048576;
 
-/** Column number (1-based) to letters: 1 → "A", 28 → "AB". */
-export function columnLetters(column: number): string {
-  let n = column;
-  let s = '';
-  while (n > 0) {
-    const rem = (n - 1) % 26;
-    s = String.fromCharCode(65 + rem) + s;
-    n = Math.floor((n - 1) / 26);
-  }
-  return s;
-}
-
-/** Column letters to number: "A" → 1, "ab" → 28. Returns NaN for anything that is not letters. */
-export function columnNumber(letters: string): number {
-  if (!/^[A-Za-z]{1,3}$/.test(letters)) return NaN;
-  let n = 0;
-  for (const ch of letters.toUpperCase()) n = n * 26 + (ch.charCodeAt(0) - 64);
-  return n <= MAX_COLUMN ? n : NaN;
-}
+/** Column number (1-based) to letters, and back ("A" ↔ 1, "AB" ↔ 28; NaN for what is not a column). */
+export { columnLetters, columnNumber };
 
 /** "B2" for row 2, column 2. */
 export function cellName(row: number, column: number): string {

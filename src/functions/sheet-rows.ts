@@ -4,6 +4,7 @@
  * hosts that do not supply one) pairs are named by their position in the range: "position 5".
  */
 import { CellRange } from './cells';
+import { columnLetters } from './column-letters';
 
 /** Start of a range address: 1-based row and column of its top-left cell, or null when it cannot be read. */
 export function rangeStart(address: string | undefined | null): { row: number; column: number } | null {
@@ -22,14 +23,7 @@ export function rangeStart(address: string | undefined | null): { row: number; c
 
 /** Column letters for a 1-based column number: 1 -> "A", 28 -> "AB". */
 export function columnName(column: number): string {
-  let s = '';
-  let c = column;
-  while (c > 0) {
-    const r = (c - 1) % 26;
-    s = String.fromCharCode(65 + r) + s;
-    c = (c - 1 - r) / 26;
-  }
-  return s;
+  return columnLetters(column);
 }
 
 /** How pairs are named: `key` tells cached results with different names apart. */
