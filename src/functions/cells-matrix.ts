@@ -4,7 +4,7 @@
  * TRUE/FALSE and errors do not). No mathematics here.
  */
 import { StatsInputError } from '../stats/types';
-import { cellNumber, CellRange, readVector, vectorLength, ZERO_TAIL_LIMIT } from './cells';
+import { assertSameSize, cellNumber, CellRange, readVector, vectorLength, ZERO_TAIL_LIMIT } from './cells';
 
 /** Rows and columns of a rectangular range; throws a user error for anything else. Reads no cell. */
 export function rangeShape(range: CellRange, name: string): { rows: number; cols: number } {
@@ -120,7 +120,7 @@ export function readWithControls(
 ): { x: Float64Array; y: Float64Array; controls: Float64Array[] } {
   const n = vectorLength(x, 'x');
   const ny = vectorLength(y, 'y');
-  if (ny !== n) throw new StatsInputError('unequal-length', `x and y must hold the same number of cells (${n} and ${ny})`);
+  assertSameSize(n, ny);
   const { rows, cols } = rangeShape(controls, 'controls');
   const xIsRow = x.length === 1 && n > 1;
   let controlColumns: Float64Array[];

@@ -64,6 +64,13 @@ export function readVector(range: CellRange, name: string, limit = Infinity): Fl
   return out;
 }
 
+/** Two ranges that pair cell by cell must hold the same number of cells. */
+export function assertSameSize(nx: number, ny: number, xName = 'x', yName = 'y'): void {
+  if (nx !== ny) {
+    throw new StatsInputError('unequal-length', `${xName} and ${yName} must hold the same number of cells (${nx} and ${ny})`);
+  }
+}
+
 /**
  * Pairs two ranges cell by cell (a row and a column of equal length pair up too) and keeps the complete pairs.
  * @throws StatsInputError when the ranges hold different numbers of cells.
@@ -71,18 +78,14 @@ export function readVector(range: CellRange, name: string, limit = Infinity): Fl
 export function readPairs(xRange: CellRange, yRange: CellRange, xName = 'x', yName = 'y'): PairedColumns {
   const nx = vectorLength(xRange, xName);
   const ny = vectorLength(yRange, yName);
-  if (nx !== ny) {
-    throw new StatsInputError('unequal-length', `${xName} and ${yName} must hold the same number of cells (${nx} and ${ny})`);
-  }
+  assertSameSize(nx, ny, xName, yName);
   return readPairsFromVectors(readVector(xRange, xName), readVector(yRange, yName), xName, yName);
 }
 
 /** Pairs two vectors already read (NaN marks a cell that does not count). */
 export function readPairsFromVectors(xs: Float64Array, ys: Float64Array, xName = 'x', yName = 'y', total = xs.length): PairedColumns {
   const nx = xs.length;
-  if (ys.length !== nx) {
-    throw new StatsInputError('unequal-length', `${xName} and ${yName} must hold the same number of cells (${nx} and ${ys.length})`);
-  }
+  assertSameSize(nx, ys.length, xName, yName);
   refuseBlanksAsZeros(xs, ys, xName, yName);
   let used = 0;
   for (let k = 0; k < nx; k++) if (xs[k] === xs[k] && ys[k] === ys[k]) used++;

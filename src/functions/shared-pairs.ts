@@ -8,7 +8,7 @@
  * Memory: at most MAX_ENTRIES entries and MAX_VALUES stored numbers; the least recently used go first.
  */
 import { PreparedPairs } from '../stats/prepared';
-import { CellRange, PairedColumns, readPairsFromVectors, readVector, vectorLength } from './cells';
+import { assertSameSize, CellRange, PairedColumns, readPairsFromVectors, readVector, vectorLength } from './cells';
 
 const MAX_ENTRIES = 16;
 const MAX_VALUES = 8_000_000;
@@ -49,7 +49,7 @@ export function sharedPairs(
 ): { pairs: PairedColumns; prepared: PreparedPairs } {
   const total = vectorLength(xRange, xName);
   const ny = vectorLength(yRange, yName);
-  if (total !== ny) return { pairs: readPairsFromVectors(new Float64Array(total), new Float64Array(ny), xName, yName), prepared: new PreparedPairs([], []) };
+  assertSameSize(total, ny, xName, yName);
   // Rows after x's last number can never pair, whatever y holds there: y is read only up to that row. On a
   // whole-column reference (1,048,576 rows, mostly blank) this halves the reading, the cost that dominates.
   const xFull = readVector(xRange, xName);
