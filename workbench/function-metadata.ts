@@ -6,6 +6,7 @@
 
 export interface ParameterMeta {
   name: string;
+  description?: string;
   type?: string;
   dimensionality?: 'scalar' | 'matrix';
   optional?: boolean;

@@ -6,23 +6,8 @@
 import * as fs from 'fs';
 import { BareHost, distFile, HostError, loadBundle } from '../../../helpers/bare-host';
 
-export interface ParamMeta {
-  name: string;
-  description?: string;
-  type?: string;
-  dimensionality?: 'scalar' | 'matrix';
-  optional?: boolean;
-  repeating?: boolean;
-}
-
-export interface FunctionMeta {
-  id: string;
-  name: string;
-  description?: string;
-  parameters: ParamMeta[];
-  result?: { type?: string; dimensionality?: 'scalar' | 'matrix' };
-  options?: Record<string, boolean | undefined>;
-}
+export type { FunctionMeta, ParameterMeta as ParamMeta } from '../../../../workbench/function-metadata';
+import type { FunctionMeta } from '../../../../workbench/function-metadata';
 
 if (!fs.existsSync(distFile('functions.js')) || !fs.existsSync(distFile('functions.json'))) {
   throw new Error('dist/functions.js is missing: run `npm run build` first (npm test does)');
