@@ -37,12 +37,12 @@ function addGroup(s: TieSums, t: number): void {
  * Counts concordance for Kendall's tau-b by Knight's algorithm (Knight 1966, "A computer method for calculating
  * Kendall's tau with ungrouped data", JASA 61:436-439): sort pairs by (x, y), count x ties and joint ties, then
  * merge-sort y counting exchanges (discordant pairs), and finally count y ties. O(n log n) time, O(n) memory.
+ * `sortedY` is y's sorted order when a caller already has it (Spearman's ranks use the same sort).
  */
-export function kendallCounts(x: ArrayLike<number>, y: ArrayLike<number>): KendallCounts {
+export function kendallCounts(x: ArrayLike<number>, y: ArrayLike<number>, sortedY: KeyedOrder = argsortKeyed(y)): KendallCounts {
   const n = x.length;
   if (y.length !== n) throw new StatsInputError('unequal-length', 'x and y must hold the same number of values');
   // Lexicographic (x, y) order: stable sort by x of the y-sorted order.
-  const sortedY = argsortKeyed(y);
   const byY = sortedY.order;
   const sortedX = argsortKeyed(x, byY);
   const order = sortedX.order;

@@ -2,7 +2,7 @@ import { coMoments, CoMoments } from './comoments';
 import { kendallCounts, KendallCounts } from './kendall';
 import { averageRanks } from './ranks';
 import { fitLine, LineFit } from './regression';
-import { argsort } from './sort';
+import { argsort, argsortKeyed, KeyedOrder } from './sort';
 
 /**
  * Two paired columns with the expensive intermediate results computed once, on first use: co-moments, ranks,
@@ -40,8 +40,13 @@ export class PreparedPairs {
     return this.memo('ranksX', () => averageRanks(this.x, argsort(this.x)));
   }
 
+  /** y's sorted order, shared by Spearman's ranks and Kendall's counts. */
+  get sortedY(): KeyedOrder {
+    return this.memo('sortedY', () => argsortKeyed(this.y));
+  }
+
   get ranksY(): Float64Array {
-    return this.memo('ranksY', () => averageRanks(this.y, argsort(this.y)));
+    return this.memo('ranksY', () => averageRanks(this.y, this.sortedY.order));
   }
 
   get rankMoments(): CoMoments {
@@ -49,7 +54,7 @@ export class PreparedPairs {
   }
 
   get kendall(): KendallCounts {
-    return this.memo('kendall', () => kendallCounts(this.x, this.y));
+    return this.memo('kendall', () => kendallCounts(this.x, this.y, this.sortedY));
   }
 
   get fit(): LineFit {
