@@ -8,6 +8,7 @@ module.exports = {
       testEnvironment: 'node',
       transform: { '^.+\\.ts$': tsJest },
       testMatch: ['<rootDir>/test/unit/**/*.test.ts'],
+      setupFiles: ['<rootDir>/test/setup/fast-check-seed.js'],
     },
     {
       displayName: 'browser',
