@@ -30,7 +30,7 @@ export function checkedPairs(x: CellRange, y: CellRange, alpha: number, xAddress
   const naming = pointNaming(x, xAddress);
   const index = pairs.index;
   const report = prepared.memo(`checks|${alpha}|${naming.key}`, () =>
-    runChecks(prepared.x, prepared.y, { alpha, pointName: (i) => naming.name(index[i]) }),
+    runChecks(prepared.x, prepared.y, { alpha, pointName: (i) => naming.name(index ? index[i] : i) }),
   );
   return { pairs, prepared, report };
 }

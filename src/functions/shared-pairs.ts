@@ -5,9 +5,13 @@
  *
  * Safety: entries are found by a hash of the cell contents and then compared value by value with the new read,
  * so an edited cell can never return an old answer (a hash collision costs a recomputation, nothing else).
- * Memory: at most MAX_ENTRIES entries and MAX_VALUES stored numbers; the least recently used go first.
+ * Memory: at most MAX_ENTRIES entries and MAX_VALUES stored numbers; the least recently used go first. An evicted
+ * entry's arrays go back to the scratch pool (src/stats/scratch.ts) unless a caller still holds the entry: work
+ * that spans several host turns pins it (pinShared) while it runs, and a pinned entry is left to the garbage
+ * collector instead.
  */
 import { PreparedPairs } from '../stats/prepared';
+import { giveBack } from '../stats/scratch';
 import { assertSameSize, CellRange, PairedColumns, readPairsFromVectors, readVector, vectorLength } from './cells';
 
 const MAX_ENTRIES = 16;
@@ -20,6 +24,7 @@ interface Entry {
   pairs: PairedColumns;
   prepared: PreparedPairs;
   values: number;
+  pins: number;
 }
 
 const entries = new Map<string, Entry>();
@@ -38,6 +43,31 @@ function sameValues(a: Float64Array, b: Float64Array): boolean {
   const wb = new Uint32Array(b.buffer, b.byteOffset, b.length * 2);
   for (let i = 0; i < wa.length; i++) if (wa[i] !== wb[i]) return false;
   return true;
+}
+
+/** Forgets an entry; its arrays are recycled when nobody holds it. */
+function drop(key: string, e: Entry): void {
+  entries.delete(key);
+  storedValues -= e.values;
+  if (e.pins > 0) return;
+  const { xs, ys, pairs, prepared } = e;
+  giveBack(xs, ys, pairs.x !== xs ? pairs.x : null, pairs.y !== ys ? pairs.y : null, pairs.index);
+  prepared.release();
+}
+
+/** Keeps the entry behind `prepared` out of the recycling until the returned function is called. */
+export function pinShared(prepared: PreparedPairs): () => void {
+  for (const e of entries.values()) {
+    if (e.prepared === prepared) {
+      e.pins++;
+      let done = false;
+      return () => {
+        if (!done) e.pins--;
+        done = true;
+      };
+    }
+  }
+  return () => undefined;
 }
 
 /** Reads x and y and returns their complete pairs and the shared prepared columns. */
@@ -63,24 +93,21 @@ export function sharedPairs(
   if (hit && sameValues(hit.xs, xs) && sameValues(hit.ys, ys)) {
     entries.delete(key); // re-insert: most recently used last
     entries.set(key, hit);
+    giveBack(xFull, ys); // this call's reads are not needed: the entry holds the same values
     return hit;
   }
   const pairs = readPairsFromVectors(xs, ys, xName, yName, total);
   const prepared = new PreparedPairs(pairs.x, pairs.y);
   const values = 2 * xs.length + 3 * pairs.x.length;
   // (xs may be a view on a longer read; its buffer is what stays alive, counted by the caller's bound below)
-  if (hit) {
-    entries.delete(key);
-    storedValues -= hit.values;
-  }
+  if (hit) drop(key, hit);
   if (values <= MAX_VALUES) {
     while (entries.size >= MAX_ENTRIES || storedValues + values > MAX_VALUES) {
       const oldest = entries.keys().next();
       if (oldest.done) break;
-      storedValues -= entries.get(oldest.value)!.values;
-      entries.delete(oldest.value);
+      drop(oldest.value, entries.get(oldest.value)!);
     }
-    entries.set(key, { hash, xs, ys, pairs, prepared, values });
+    entries.set(key, { hash, xs, ys, pairs, prepared, values, pins: 0 });
     storedValues += values;
   }
   return { pairs, prepared };

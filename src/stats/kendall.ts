@@ -1,4 +1,5 @@
-import { argsortKeyed, KeyedOrder } from './sort';
+import { borrowI32, giveBack } from './scratch';
+import { argsortKeyed, KeyedOrder, releaseKeyedOrder } from './sort';
 import { StatsInputError } from './types';
 
 /** Everything Kendall's tau-b and its tests need, counted in O(n log n). */
@@ -48,7 +49,7 @@ export function kendallCounts(x: ArrayLike<number>, y: ArrayLike<number>, sorted
   const order = sortedX.order;
   // Dense ranks of y (equal values share a rank): the merge sort then moves 32-bit integers, not doubles. Ties
   // are read from the sorted keys sequentially when the radix path gave them.
-  const yRank = new Int32Array(n);
+  const yRank = borrowI32(n);
   const sameY = sameAsPrevious(sortedY, y);
   for (let i = 0, r = 0; i < n; i++) {
     if (i > 0 && !sameY(i)) r++;
@@ -59,7 +60,7 @@ export function kendallCounts(x: ArrayLike<number>, y: ArrayLike<number>, sorted
   let tiedXY = 0;
   const xTie = emptySums();
   // y ranks in (x, y) order, to be merge-sorted.
-  let a = new Int32Array(n);
+  let a = borrowI32(n);
   for (let i = 0; i < n; i++) a[i] = yRank[order[i]];
   let i = 0;
   while (i < n) {
@@ -98,7 +99,7 @@ export function kendallCounts(x: ArrayLike<number>, y: ArrayLike<number>, sorted
       discordant += k - 1 - m;
     }
   }
-  let b = new Int32Array(n);
+  let b = borrowI32(n);
   for (let width = RUN; width < n; width *= 2) {
     for (let lo = 0; lo < n; lo += 2 * width) {
       const mid = Math.min(lo + width, n);
@@ -134,6 +135,8 @@ export function kendallCounts(x: ArrayLike<number>, y: ArrayLike<number>, sorted
     }
     i = j;
   }
+  releaseKeyedOrder(sortedX);
+  giveBack(yRank, a, b);
   const n0 = (n * (n - 1)) / 2;
   // concordant - discordant = n0 - tiedX - tiedY + tiedXY - 2 * discordant (Knight 1966)
   const s = n0 - tiedX - tiedY + tiedXY - 2 * discordant;

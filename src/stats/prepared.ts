@@ -2,7 +2,8 @@ import { coMoments, CoMoments } from './comoments';
 import { kendallCounts, KendallCounts } from './kendall';
 import { averageRanks } from './ranks';
 import { fitLine, LineFit } from './regression';
-import { argsort, argsortKeyed, KeyedOrder } from './sort';
+import { giveBack } from './scratch';
+import { argsortKeyed, KeyedOrder, releaseKeyedOrder } from './sort';
 
 /**
  * Two paired columns with the expensive intermediate results computed once, on first use: co-moments, ranks,
@@ -37,7 +38,12 @@ export class PreparedPairs {
   }
 
   get ranksX(): Float64Array {
-    return this.memo('ranksX', () => averageRanks(this.x, argsort(this.x)));
+    return this.memo('ranksX', () => {
+      const sorted = argsortKeyed(this.x);
+      const ranks = averageRanks(this.x, sorted.order);
+      releaseKeyedOrder(sorted);
+      return ranks;
+    });
   }
 
   /** y's sorted order, shared by Spearman's ranks and Kendall's counts. */
@@ -59,5 +65,16 @@ export class PreparedPairs {
 
   get fit(): LineFit {
     return this.memo('fit', () => fitLine(this.x, this.y));
+  }
+
+  /**
+   * Hands the sorted orders and ranks back to the scratch pool (see scratch.ts) and forgets every memo. Only for
+   * an owner that knows nothing else still reads them (the cell functions' cache, on eviction).
+   */
+  release(): void {
+    const sortedY = this.memos.get('sortedY') as KeyedOrder | undefined;
+    if (sortedY) releaseKeyedOrder(sortedY);
+    giveBack(this.memos.get('ranksX') as Float64Array | undefined, this.memos.get('ranksY') as Float64Array | undefined);
+    this.memos.clear();
   }
 }

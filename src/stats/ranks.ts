@@ -1,3 +1,4 @@
+import { borrowF64 } from './scratch';
 import { argsort } from './sort';
 
 /**
@@ -7,7 +8,7 @@ import { argsort } from './sort';
  */
 export function averageRanks(v: ArrayLike<number>, order: Uint32Array<ArrayBufferLike> = argsort(v)): Float64Array {
   const n = v.length;
-  const ranks = new Float64Array(n);
+  const ranks = borrowF64(n); // every element is written below
   let i = 0;
   while (i < n) {
     let j = i + 1;

@@ -12,6 +12,7 @@
  * Keys must not be NaN. -0 and +0 are equal keys (stability keeps their order).
  */
 import { decimalPlaces } from './comoments';
+import { borrowU32, giveBack } from './scratch';
 
 const SMALL = 64;
 const BITS = 11;
@@ -40,7 +41,7 @@ function decimalKeys(keys: ArrayLike<number>, order: Uint32Array<ArrayBufferLike
     if (k > max) max = k;
   }
   if (max - min >= 4294967296) return null;
-  const out = new Uint32Array(n);
+  const out = borrowU32(n);
   for (let i = 0; i < n; i++) out[i] = Math.round(keys[order[i]] * s) - min;
   return out;
 }
@@ -50,8 +51,8 @@ function bitKeys(keys: ArrayLike<number>, order: Uint32Array<ArrayBufferLike>): 
   const n = order.length;
   const f = new Float64Array(1);
   const w = new Uint32Array(f.buffer); // little-endian: w[0] low word, w[1] high word
-  const hi = new Uint32Array(n);
-  const lo = new Uint32Array(n);
+  const hi = borrowU32(n);
+  const lo = borrowU32(n);
   for (let i = 0; i < n; i++) {
     const v = keys[order[i]];
     f[0] = v === 0 ? 0 : v; // fold -0 into +0
@@ -87,9 +88,11 @@ export interface KeyedOrder {
 export function argsortKeyed(keys: ArrayLike<number>, initial?: Uint32Array<ArrayBufferLike>): KeyedOrder {
   const n = keys.length;
   let order: Uint32Array<ArrayBufferLike>;
-  if (initial) order = initial.slice();
-  else {
-    order = new Uint32Array(n);
+  if (initial) {
+    order = borrowU32(n);
+    order.set(initial);
+  } else {
+    order = borrowU32(n);
     for (let i = 0; i < n; i++) order[i] = i;
   }
   if (n < SMALL) return { order: comparisonArgsort(keys, order), sortedWords: null };
@@ -111,9 +114,10 @@ export function argsortKeyed(keys: ArrayLike<number>, initial?: Uint32Array<Arra
     }
   }
   let src: Uint32Array<ArrayBufferLike>[] = words.map((wd) => wd);
-  let dst: Uint32Array<ArrayBufferLike>[] = words.map(() => new Uint32Array(n));
+  // Work arrays come from the scratch pool (see scratch.ts); the pair not returned goes back to it at the end.
+  let dst: Uint32Array<ArrayBufferLike>[] = words.map(() => borrowU32(n));
   let idxSrc = order;
-  let idxDst: Uint32Array<ArrayBufferLike> = new Uint32Array(n);
+  let idxDst: Uint32Array<ArrayBufferLike> = borrowU32(n);
   for (let pass = 0; pass < passes; pass++) {
     const wi = Math.floor(pass / passesPerWord);
     const shift = (pass % passesPerWord) * BITS;
@@ -156,5 +160,11 @@ export function argsortKeyed(keys: ArrayLike<number>, initial?: Uint32Array<Arra
     idxSrc = idxDst;
     idxDst = ti;
   }
+  giveBack(idxDst, ...dst);
   return { order: idxSrc, sortedWords: src };
+}
+
+/** Returns a sort's arrays to the scratch pool once the caller is done with them (nothing may still use them). */
+export function releaseKeyedOrder(k: KeyedOrder): void {
+  giveBack(k.order, ...(k.sortedWords ?? []));
 }
