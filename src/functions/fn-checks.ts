@@ -29,9 +29,12 @@ export function checkedPairs(x: CellRange, y: CellRange, alpha: number, xAddress
   requirePairs(pairs, 3);
   const naming = pointNaming(x, xAddress);
   const index = pairs.index;
-  const report = prepared.memo(`checks|${alpha}|${naming.key}`, () =>
-    runChecks(prepared.x, prepared.y, { alpha, pointName: (i) => naming.name(index ? index[i] : i) }),
-  );
+  const report = prepared.memo(`checks|${alpha}|${naming.key}`, () => {
+    const r = runChecks(prepared.x, prepared.y, { alpha, pointName: (i) => naming.name(index ? index[i] : i) });
+    const p = r.points; // read only here, for the summaries: recycled with the cache entry
+    prepared.adopt(p.fitted, p.residuals, p.studentized, p.leverage, p.cooksDistance);
+    return r;
+  });
   return { pairs, prepared, report };
 }
 

@@ -15,6 +15,8 @@ export class PreparedPairs {
   readonly x: Float64Array;
   readonly y: Float64Array;
   private readonly memos = new Map<string, unknown>();
+  /** Arrays inside memoised values that release() may give back (see adopt). */
+  private readonly adopted: ArrayBufferView[] = [];
 
   constructor(x: ArrayLike<number>, y: ArrayLike<number>) {
     this.x = x instanceof Float64Array ? x : Float64Array.from(x);
@@ -74,7 +76,16 @@ export class PreparedPairs {
   release(): void {
     const sortedY = this.memos.get('sortedY') as KeyedOrder | undefined;
     if (sortedY) releaseKeyedOrder(sortedY);
+    const fit = this.memos.get('fit') as LineFit | undefined;
     giveBack(this.memos.get('ranksX') as Float64Array | undefined, this.memos.get('ranksY') as Float64Array | undefined);
+    if (fit) giveBack(fit.fitted, fit.residuals);
+    giveBack(...this.adopted);
+    this.adopted.length = 0;
     this.memos.clear();
+  }
+
+  /** Marks arrays of a memoised value (e.g. a check report's per-point columns) as given back on release(). */
+  adopt(...arrays: ArrayBufferView[]): void {
+    this.adopted.push(...arrays);
   }
 }

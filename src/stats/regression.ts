@@ -1,3 +1,4 @@
+import { borrowF64 } from './scratch';
 import { coMoments } from './comoments';
 import { assertVaries } from './pearson';
 
@@ -27,8 +28,8 @@ export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>): LineFit {
   const slope = (m.sxy / m.sxx) * (m.scaleY / m.scaleX);
   const intercept = m.meanY - slope * m.meanX;
   const n = m.n;
-  const fitted = new Float64Array(n);
-  const residuals = new Float64Array(n);
+  const fitted = borrowF64(n); // both written in full below
+  const residuals = borrowF64(n);
   let rss = 0;
   for (let i = 0; i < n; i++) {
     // Centred form keeps the fitted values accurate when x carries a large offset.

@@ -1,3 +1,4 @@
+import { borrowF64, giveBack } from '../scratch';
 import { coMoments, powerOfTwoScale } from '../comoments';
 import { chiSquareSf } from '../distributions';
 import { pearsonFromMoments } from '../pearson';
@@ -32,12 +33,13 @@ export function breuschPagan(x: ArrayLike<number>, residuals: ArrayLike<number>)
   if (residuals.length !== n) throw new StatsInputError('unequal-length', 'x and the residuals must have the same length');
   if (n < 4) throw new StatsInputError('too-few', 'testing the spread needs at least 4 points');
   const scale = powerOfTwoScale(residuals);
-  const squared = new Float64Array(n);
+  const squared = borrowF64(n);
   for (let i = 0; i < n; i++) {
     const e = residuals[i] / scale;
     squared[i] = e * e;
   }
   const m = coMoments(x, squared);
+  giveBack(squared);
   if (!(m.sxx > 0)) throw new StatsInputError('constant', 'x is constant, so the spread cannot be compared across it');
   if (!(m.syy > 0)) throw new StatsInputError('constant', 'the residuals are all the same size, so there is no spread to compare');
   const r = pearsonFromMoments(m);

@@ -1,3 +1,4 @@
+import { borrowF64, giveBack } from '../scratch';
 import { powerOfTwoScale } from '../comoments';
 import { studentTSf } from '../distributions';
 import { StatsInputError } from '../types';
@@ -76,7 +77,7 @@ export function lineInfluence(x: ArrayLike<number>, residuals: ArrayLike<number>
   if (n < 3) throw new StatsInputError('too-few', 'influence diagnostics need at least 3 points');
   const sx = powerOfTwoScale(x);
   const mean = compensatedSum(n, (i) => x[i] / sx) / n;
-  const c = new Float64Array(n);
+  const c = borrowF64(n); // work arrays c and e go back to the scratch pool at the end
   for (let i = 0; i < n; i++) c[i] = x[i] / sx - mean;
   const sc = powerOfTwoScale(c);
   for (let i = 0; i < n; i++) c[i] /= sc;
@@ -87,14 +88,15 @@ export function lineInfluence(x: ArrayLike<number>, residuals: ArrayLike<number>
   const cc = compensatedSum(n, (i) => c[i] * c[i]) - (cSum * cSum) / n;
   if (!(cc > 0)) throw new StatsInputError('constant', 'x is constant, so no line can be fitted');
   const se = powerOfTwoScale(residuals);
-  const e = new Float64Array(n);
+  const e = borrowF64(n);
   for (let i = 0; i < n; i++) e[i] = residuals[i] / se;
   const rss = compensatedSum(n, (i) => e[i] * e[i]);
   const noise = residualNoise / se;
   const s2 = rss / (n - 2);
-  const leverage = new Float64Array(n);
-  const studentized = new Float64Array(n);
-  const cooksDistance = new Float64Array(n);
+  // Every path below writes all three at each i.
+  const leverage = borrowF64(n);
+  const studentized = borrowF64(n);
+  const cooksDistance = borrowF64(n);
   let maxLeverageIndex = 0, maxStudentizedIndex = -1, maxCookIndex = -1;
   for (let i = 0; i < n; i++) {
     const h = Math.min(1, 1 / n + (c[i] * c[i]) / cc);
@@ -147,6 +149,7 @@ export function lineInfluence(x: ArrayLike<number>, residuals: ArrayLike<number>
       maxStudentizedIndex = i;
     }
   }
+  giveBack(c, e);
   return { n, leverage, studentized, cooksDistance, maxLeverageIndex, maxStudentizedIndex, maxCookIndex };
 }
 

@@ -1,3 +1,4 @@
+import { borrowF64, giveBack } from '../scratch';
 import { powerOfTwoScale } from '../comoments';
 import { fSf } from '../distributions';
 import { StatsInputError } from '../types';
@@ -61,7 +62,7 @@ export function curvatureTest(x: ArrayLike<number>, residuals: ArrayLike<number>
   let mean = 0;
   for (let i = 0; i < n; i++) mean += x[i];
   mean /= n;
-  const c = new Float64Array(n);
+  const c = borrowF64(n); // c, q and e are work arrays, given back to the scratch pool below
   for (let i = 0; i < n; i++) c[i] = x[i] - mean;
   const sc = powerOfTwoScale(c);
   for (let i = 0; i < n; i++) c[i] /= sc;
@@ -70,7 +71,7 @@ export function curvatureTest(x: ArrayLike<number>, residuals: ArrayLike<number>
   cMean /= n;
   for (let i = 0; i < n; i++) c[i] -= cMean;
   const cc = dot(c, c);
-  const q = new Float64Array(n);
+  const q = borrowF64(n);
   for (let i = 0; i < n; i++) q[i] = c[i] * c[i];
   let qMean = 0;
   for (let i = 0; i < n; i++) qMean += q[i];
@@ -85,7 +86,7 @@ export function curvatureTest(x: ArrayLike<number>, residuals: ArrayLike<number>
     throw new StatsInputError('constant', 'the x values are too close together to tell a curve from a line');
   }
   const se = powerOfTwoScale(residuals);
-  const e = new Float64Array(n);
+  const e = borrowF64(n);
   for (let i = 0; i < n; i++) e[i] = residuals[i] / se;
   // Least-squares residuals are orthogonal to 1 and x; this removes what rounding in the line fit left behind.
   orthogonalize(e, c, cc);
@@ -98,6 +99,7 @@ export function curvatureTest(x: ArrayLike<number>, residuals: ArrayLike<number>
     const r = e[i] - beta * q[i];
     rssQuadratic += r * r;
   }
+  giveBack(c, q, e);
   const df2 = n - 3;
   // A parabola through every point leaves only rounding (relative 1e-24 and below): F is infinite, not 1e30.
   const exactParabola = rssQuadratic <= 1e-24 * reduction;

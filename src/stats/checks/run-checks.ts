@@ -1,3 +1,4 @@
+import { borrowF64, giveBack } from '../scratch';
 import { powerOfTwoScale } from '../comoments';
 import { normalQuantile } from '../distributions';
 import { fitLine, LineFit } from '../regression';
@@ -178,8 +179,8 @@ export function runChecks(xIn: ArrayLike<number>, yIn: ArrayLike<number>, opts: 
   // take the residuals with it. Only the line and the per-point arrays are given back in original units.
   const scaleX = powerOfTwoScale(x);
   const scaleY = powerOfTwoScale(y);
-  const xs = scaleX === 1 ? x : x.map((v) => v / scaleX);
-  const ys = scaleY === 1 ? y : y.map((v) => v / scaleY);
+  const xs = scaleX === 1 ? x : scaledCopy(x, scaleX);
+  const ys = scaleY === 1 ? y : scaledCopy(y, scaleY);
   const fit = fitLine(xs, ys);
   const noise = residualNoise(xs, ys, fit);
   const onLine = liesOnLine(fit, noise);
@@ -205,6 +206,7 @@ export function runChecks(xIn: ArrayLike<number>, yIn: ArrayLike<number>, opts: 
       points.residuals[i] *= scaleY;
     }
   }
+  giveBack(xs !== x ? xs : null, ys !== y ? ys : null); // nothing kept refers to the scaled copies
   const flags: string[] = [];
   let notTestableCount = 0;
   for (const row of checks) {
@@ -220,6 +222,14 @@ export function runChecks(xIn: ArrayLike<number>, yIn: ArrayLike<number>, opts: 
     notTestable: notTestableCount,
     points,
   };
+}
+
+/** v / scale in a work array from the scratch pool (the caller gives it back). */
+function scaledCopy(v: Float64Array, scale: number): Float64Array {
+  const out = borrowF64(v.length);
+  const inv = 1 / scale; // exact: scale is a power of two
+  for (let i = 0; i < v.length; i++) out[i] = v[i] * inv;
+  return out;
 }
 
 function straightLineRow(x: ArrayLike<number>, fit: LineFit, onLine: boolean, alpha: number): CheckRow {

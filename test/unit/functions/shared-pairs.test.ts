@@ -3,6 +3,7 @@
  * an edit, bounded memory. Expected coefficients after edits come from R 4.2.2 (cor(x, y) on the stated data,
  * values in the comments) so the check does not rest on the project's own output.
  */
+import { CHECKS } from '../../../src/functions/fn-checks';
 import { COEF, PVALUE } from '../../../src/functions/fn-correlation';
 import { clearSharedPairs, pinShared, sharedPairs, sharedPairsStats } from '../../../src/functions/shared-pairs';
 import { correlate } from '../../../src/stats/correlate';
@@ -84,6 +85,22 @@ describe('recycled arrays (src/stats/scratch.ts) never leak into another answer'
       }
     }
     expect(scratchStats().bytes).toBeLessThanOrEqual(96 * 1024 * 1024);
+  });
+
+  test('CHECKS answers past the cache capacity equal answers computed with an empty cache and pool', () => {
+    const first = new Map<number, unknown>();
+    for (let k = 0; k < 20; k++) {
+      clearSharedPairs();
+      clearScratch();
+      const { x, y } = data(k);
+      first.set(k, CHECKS(col(x), col(y)));
+    }
+    for (let round = 0; round < 2; round++) {
+      for (let k = 0; k < 20; k++) {
+        const { x, y } = data(k);
+        expect(CHECKS(col(x), col(y))).toEqual(first.get(k));
+      }
+    }
   });
 
   test('a pinned entry keeps its arrays when evicted; an unpinned one gives them to the next read', () => {
