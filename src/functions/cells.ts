@@ -83,6 +83,25 @@ export function readVector(range: CellRange, name: string, limit = Infinity): Fl
   return out;
 }
 
+/**
+ * Index of the last cell of a single-row or single-column range that holds a number, or -1. Scans from the end
+ * without copying anything: on a whole-column reference (1,048,576 rows, a few filled) the reading can then
+ * stop at the data's end instead of storing a million blanks.
+ */
+export function lastNumberIndex(range: CellRange, name: string): number {
+  const n = vectorLength(range, name);
+  if (range.length === 1) {
+    const row = range[0];
+    for (let k = n - 1; k >= 0; k--) if (typeof row[k] === 'number') return k;
+    return -1;
+  }
+  for (let k = n - 1; k >= 0; k--) {
+    const r = range[k];
+    if (r !== undefined && typeof r[0] === 'number') return k;
+  }
+  return -1;
+}
+
 /** Two ranges that pair cell by cell must hold the same number of cells. */
 export function assertSameSize(nx: number, ny: number, xName = 'x', yName = 'y'): void {
   if (nx !== ny) {
