@@ -11,6 +11,7 @@ import { normalQuantile } from '../src/stats/distributions';
 import { lowess } from '../src/stats/lowess';
 import { recommendCoefficient, Recommendation } from '../src/stats/checks/advice';
 import { runChecks } from '../src/stats/checks/run-checks';
+import { giveBack } from '../src/stats/scratch';
 import type { CheckRow } from '../src/stats/checks/check-report';
 import { CorrelationResult, Method, StatsInputError } from '../src/stats/types';
 import { drawSample } from './draw-sample';
@@ -151,6 +152,10 @@ export function analyseRelationship(p: PairedRows, opts: RelationshipOptions): R
       drawn.cooksDistance[k] = pts.cooksDistance[i];
       drawn.leverage[k] = pts.leverage[i];
     }
+
+    // The per-point columns of all n rows are done with (the view keeps only the drawn ones): back to the scratch
+    // pool, so the next redraw reuses their pages instead of allocating and collecting 5 new columns.
+    giveBack(pts.fitted, pts.residuals, pts.studentized, pts.leverage, pts.cooksDistance);
 
     let smooth: RelationshipView['smooth'] = null;
     if (n >= 4) {
