@@ -8,8 +8,8 @@
  * (120-160 ms each). Taking the temporaries from a small pool and handing them back keeps both off the call. Pooled arrays hold stale contents: a borrower writes every element before
  * reading it.
  *
- * Bounded: at most MAX_HELD buffers and MAX_BYTES bytes are kept between calls; a buffer is reused only for a
- * request of at least half its size, so a small call never pins a large buffer and vice versa.
+ * Bounded: at most MAX_HELD buffers and MAX_BYTES bytes are kept between calls, the oldest leaving first; a buffer
+ * is reused only for a request of at least half its size, so a small call never pins a large buffer.
  */
 const MAX_HELD = 16;
 const MAX_BYTES = 96 * 1024 * 1024;
@@ -56,8 +56,10 @@ export function giveBack(...arrays: (ArrayBufferView | null | undefined)[]): voi
     // here creates a SharedArrayBuffer.)
     if (!a || a.byteOffset !== 0) continue;
     const buf = a.buffer as ArrayBuffer;
-    if (buf.byteLength < MIN_POOLED * 4 || held.includes(buf)) continue;
-    if (held.length >= MAX_HELD || heldBytes + buf.byteLength > MAX_BYTES) continue;
+    if (buf.byteLength < MIN_POOLED * 4 || buf.byteLength > MAX_BYTES || held.includes(buf)) continue;
+    // Full: the oldest buffers make room. Sizes follow the data in use, so buffers left from an earlier, smaller
+    // data set must not keep a larger one's out.
+    while (held.length >= MAX_HELD || heldBytes + buf.byteLength > MAX_BYTES) heldBytes -= held.shift()!.byteLength;
     held.push(buf);
     heldBytes += buf.byteLength;
   }
