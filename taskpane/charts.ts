@@ -132,10 +132,27 @@ function pointDatasets(points: PlotPoint[]): PointDataset[] {
   ];
 }
 
-/** A scatter of points with lines over it; hover shows `describe`, click reports the point's row. */
+/** Runs `fn` when the page is idle (soon in any case), or after a short delay where idle callbacks are missing. */
+function whenIdle(fn: () => void): void {
+  const w = globalThis as unknown as { requestIdleCallback?: (cb: () => void, o?: { timeout: number }) => number };
+  if (typeof w.requestIdleCallback === 'function') w.requestIdleCallback(fn, { timeout: 300 });
+  else setTimeout(fn, 50);
+}
+
+/**
+ * A scatter of points with lines over it; hover shows `describe`, click reports the point's row.
+ *
+ * Viewport first: a chart that is on screen (or within 300 px of it) repaints at once on update; one scrolled out
+ * of view keeps the new content and repaints when it comes into view or when the page is next idle, whichever is
+ * first. So a redraw lands on what the user is looking at without waiting for the charts below the fold, and
+ * those are current by the time anyone scrolls to them. `stale` tells whether a repaint is owed.
+ */
 export class PointPlot {
   private readonly chart: Chart;
   private content: PlotContent | null = null;
+  private onScreen = true;
+  private owed = false;
+  private readonly observer: IntersectionObserver | null = null;
 
   constructor(canvas: HTMLCanvasElement, onPick: (row: number) => void) {
     const config: ChartConfiguration<'scatter', PlotPoint[] | XY[]> = {
@@ -180,10 +197,45 @@ export class PointPlot {
       },
     };
     this.chart = new Chart(canvas, config as ChartConfiguration);
+    if (typeof IntersectionObserver !== 'undefined') {
+      this.observer = new IntersectionObserver(
+        (entries) => {
+          for (const e of entries) this.onScreen = e.isIntersecting;
+          if (this.onScreen) this.flush();
+        },
+        { rootMargin: '300px 0px' },
+      );
+      this.observer.observe(canvas);
+    }
   }
 
+  /** New content: painted now when on screen, else owed (see the class note). */
   update(content: PlotContent): void {
     this.content = content;
+    if (this.onScreen) {
+      this.paint();
+      return;
+    }
+    if (!this.owed) {
+      this.owed = true;
+      whenIdle(() => this.flush());
+    }
+  }
+
+  /** True while new content waits to be painted. */
+  get stale(): boolean {
+    return this.owed;
+  }
+
+  /** Paints owed content now. */
+  flush(): void {
+    if (this.owed) this.paint();
+  }
+
+  private paint(): void {
+    this.owed = false;
+    const content = this.content;
+    if (!content) return;
     const data = this.chart.data as { datasets: (PointDataset | LineDataset)[] };
     data.datasets = [...pointDatasets(content.points), ...content.lines.map(lineDataset)];
     const scales = this.chart.options.scales as Record<'x' | 'y', { title: { text: string } }>;
@@ -194,6 +246,7 @@ export class PointPlot {
 
   /** Page coordinates (client pixels) of the drawn point of a sheet row, or null when it is not drawn. */
   screenPosition(row: number): { x: number; y: number } | null {
+    this.flush();
     const box = this.chart.canvas.getBoundingClientRect();
     for (let d = this.chart.data.datasets.length - 1; d >= 0; d--) {
       const ds = this.chart.data.datasets[d];
@@ -207,6 +260,8 @@ export class PointPlot {
   }
 
   destroy(): void {
+    this.observer?.disconnect();
+    this.owed = false;
     this.chart.destroy();
   }
 }

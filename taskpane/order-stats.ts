@@ -3,7 +3,7 @@
  * line) and the ranks of the few thousand drawn residuals among all of them (Q-Q abscissae). Sorting 100,000
  * values on every redraw costs more than everything else the panel computes, so:
  * - quantiles come from selection, O(n) on average (Hoare 1961, "Algorithm 65: FIND", Comm. ACM 4:321);
- * - ranks of m drawn values among n come from one pass with a binary search each, O(n log m).
+ * - ranks of m drawn values among n come from one pass with a bucketed search each, O(n) for spread-out values.
  * Pure.
  */
 
@@ -53,14 +53,15 @@ export function ranksAmong(all: ArrayLike<number>, subset: ArrayLike<number>): F
   const m = subset.length;
   const order = Array.from({ length: m }, (_, j) => j).sort((p, q) => subset[p] - subset[q]);
   const sorted = Float64Array.from(order, (j) => subset[j]);
+  const find = bucketedBound(sorted);
   // below[j]: how many of `all` are < sorted[j]; atMost[j]: how many are <= sorted[j]. A value v of `all` is below
   // sorted[j] exactly when j >= (first index with sorted > v), and at most sorted[j] when j >= (first with >= v).
   const firstAbove = new Float64Array(m + 1);
   const firstAtLeast = new Float64Array(m + 1);
   for (let i = 0; i < all.length; i++) {
     const v = all[i];
-    const atLeast = bound(sorted, v);
-    // Ties with drawn values are rare: walk past them instead of a second binary search.
+    const atLeast = find(v);
+    // Ties with drawn values are rare: walk past them instead of a second search.
     let above = atLeast;
     while (above < m && sorted[above] === v) above++;
     firstAtLeast[atLeast]++;
@@ -75,4 +76,41 @@ export function ranksAmong(all: ArrayLike<number>, subset: ArrayLike<number>): F
     out[order[j]] = (below + atMost - 1) / 2;
   }
   return out;
+}
+
+/**
+ * The same answer as bound(sorted, v), found in a few steps instead of log2(m): a table over 2m equal-width
+ * buckets of [sorted[0], sorted[m - 1]] gives, for each bucket, the first sorted index in it, and the binary
+ * search runs only between a bucket's first index and the next's. Exact: the bucket of a value is monotone in
+ * the value (one subtraction, one multiplication, floor), so every index before the bucket's first holds a
+ * smaller value and every index from the next bucket's first a larger one. On 100,000 residuals and 2,000 drawn
+ * points this replaces 11 unpredictable comparisons per value by about two.
+ */
+function bucketedBound(sorted: Float64Array): (v: number) => number {
+  const m = sorted.length;
+  const lo = sorted[0];
+  const hi = sorted[m - 1];
+  if (!(m > 1 && hi > lo)) return (v) => bound(sorted, v);
+  const buckets = 2 * m;
+  const scale = buckets / (hi - lo);
+  const bucketOf = (v: number): number => Math.min(buckets - 1, Math.floor((v - lo) * scale));
+  const first = new Int32Array(buckets + 1); // first[b]: first j with bucketOf(sorted[j]) >= b
+  let j = 0;
+  for (let b = 0; b <= buckets; b++) {
+    while (j < m && bucketOf(sorted[j]) < b) j++;
+    first[b] = j;
+  }
+  return (v) => {
+    if (v <= lo) return 0;
+    if (v > hi) return m;
+    const b = bucketOf(v);
+    let a = first[b];
+    let z = first[b + 1];
+    while (a < z) {
+      const mid = (a + z) >>> 1;
+      if (sorted[mid] < v) a = mid + 1;
+      else z = mid;
+    }
+    return a;
+  };
 }

@@ -867,7 +867,7 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
     whenIdle: () =>
       new Promise<void>((resolve) => {
         const check = (): void => {
-          if (destroyed || (!busy && scheduler.idle)) resolve();
+          if (destroyed || (!busy && scheduler.idle && !Object.values(plots).some((pl) => pl.stale))) resolve();
           else setTimeout(check, 10);
         };
         check();

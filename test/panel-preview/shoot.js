@@ -46,17 +46,19 @@ async function main() {
       const name = scenario.replace(/[^a-z0-9]+/gi, '-');
       if (scenario.startsWith('rows=')) {
         const timings = [];
-        for (let k = 0; k < 5; k++) {
+        for (let k = 0; k < Number(process.env.EDITS || 5); k++) {
           const before = await page.evaluate(() => window.__covaryPanel.renderCount());
-          await page.evaluate((v) => window.previewEdit(50, v), 60 + k);
+          await page.evaluate((v) => { window.__editAt = performance.now(); window.previewEdit(50, v); }, 60 + k);
           await page.waitForFunction((b) => window.__covaryPanel.renderCount() > b, before, { timeout: 60000 });
-          await page.evaluate(() => window.__covaryPanel.whenIdle());
-          timings.push(await page.evaluate(() => ({
+          // whenIdle also waits for charts scrolled out of view, painted when the page is next idle
+          const settled = await page.evaluate(() => window.__covaryPanel.whenIdle().then(() => performance.now() - window.__editAt));
+          timings.push(await page.evaluate((allCharts) => ({
             latency: window.__covaryPanel.lastLatencyMs(),
+            allCharts,
             render: window.__covaryPanel.lastRenderMs(),
             drawn: window.__covaryPanel.drawnRows().length,
             phases: window.__covaryPanel.lastPhases(),
-          })));
+          }), settled));
           await page.waitForTimeout(300);
         }
         console.log(scenario, JSON.stringify(timings));
