@@ -13,6 +13,7 @@
  * an orange-brown with a dark outline; ordinary points are small translucent teal dots. Shape and size differ as
  * well as colour, so the highlight does not depend on seeing colour. The same style is used in every plot.
  */
+import { onIdle } from './dom';
 import {
   Chart,
   ChartConfiguration,
@@ -132,13 +133,6 @@ function pointDatasets(points: PlotPoint[]): PointDataset[] {
   ];
 }
 
-/** Runs `fn` when the page is idle (soon in any case), or after a short delay where idle callbacks are missing. */
-function whenIdle(fn: () => void): void {
-  const w = globalThis as unknown as { requestIdleCallback?: (cb: () => void, o?: { timeout: number }) => number };
-  if (typeof w.requestIdleCallback === 'function') w.requestIdleCallback(fn, { timeout: 300 });
-  else setTimeout(fn, 50);
-}
-
 /**
  * A scatter of points with lines over it; hover shows `describe`, click reports the point's row.
  *
@@ -218,7 +212,7 @@ export class PointPlot {
     }
     if (!this.owed) {
       this.owed = true;
-      whenIdle(() => this.flush());
+      onIdle(() => this.flush());
     }
   }
 

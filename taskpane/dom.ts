@@ -62,3 +62,10 @@ export function setOptions(s: HTMLSelectElement, options: { value: string; label
 export function button(text: string, testid: string, kind: 'primary' | 'secondary' = 'secondary'): HTMLButtonElement {
   return el('button', { class: `cv-button cv-button-${kind}`, text, testid, attrs: { type: 'button' } });
 }
+
+/** Runs `fn` when the page is idle (soon in any case), or after a short delay where idle callbacks are missing. */
+export function onIdle(fn: () => void): void {
+  const w = globalThis as unknown as { requestIdleCallback?: (cb: () => void, o?: { timeout: number }) => number };
+  if (typeof w.requestIdleCallback === 'function') w.requestIdleCallback(fn, { timeout: 300 });
+  else setTimeout(fn, 50);
+}

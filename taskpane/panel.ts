@@ -16,7 +16,7 @@ import { ComputeClient } from './compute-client';
 import { CompareFailure, CompareView, computeComparison, isCompareFailure } from './compare-view';
 import { IntervalPlot, PlotPoint, PointPlot } from './charts';
 import { Design, DESIGN_LABELS, designProblem, detectDesign, DesignDetection } from './design';
-import { button, clear, el, fill, select } from './dom';
+import { button, clear, el, fill, onIdle, select } from './dom';
 import { LiveScheduler, RefreshCause } from './live-scheduler';
 import { describeSource, PairChoice, PairPicker } from './pair-picker';
 import { dataBlock, pairColumns, PairingError, readNumericColumn } from './pairs';
@@ -28,6 +28,8 @@ import {
   FLAG_SETS_SLOPE,
   isFailure,
   RelationshipView,
+  WARM_UP_ROWS,
+  warmUpRound,
 } from './relationship';
 import {
   allBlank,
@@ -672,6 +674,10 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
         showMessage(relMessage, null);
         current = view;
         renderRelationship(view);
+        if (!warmedUp && view.n >= WARM_UP_ROWS && !compute.usesWorker(view.n)) {
+          warmedUp = true;
+          warmUp(0);
+        }
       }
       lap('draw');
 
@@ -725,6 +731,30 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
   }
 
   const scheduler = new LiveScheduler(refresh, opts.debounceMs ?? 200);
+
+  // After the first large redraw, a few rounds of the analysis on invented data while the page is idle, so the
+  // script engine has compiled it before the user's next edits (see warmUpRound). One round per idle slot; a
+  // round waits while a refresh runs.
+  let warmedUp = false;
+  let warming = false;
+  const WARM_UP_ROUNDS = 6;
+  function warmUp(round: number): void {
+    warming = !destroyed && round < WARM_UP_ROUNDS;
+    if (!warming) return;
+    onIdle(() => {
+      if (destroyed) return;
+      if (busy || !scheduler.idle) {
+        warmUp(round);
+        return;
+      }
+      try {
+        warmUpRound(round, { method, level, alpha, drawLimit });
+      } catch {
+        // Nothing depends on a warm-up round; the panel works the same without it.
+      }
+      warmUp(round + 1);
+    });
+  }
 
   async function rewatch(): Promise<void> {
     if (unwatch) {
@@ -867,7 +897,7 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
     whenIdle: () =>
       new Promise<void>((resolve) => {
         const check = (): void => {
-          if (destroyed || (!busy && scheduler.idle && !Object.values(plots).some((pl) => pl.stale))) resolve();
+          if (destroyed || (!busy && !warming && scheduler.idle && !Object.values(plots).some((pl) => pl.stale))) resolve();
           else setTimeout(check, 10);
         };
         check();
