@@ -749,6 +749,7 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
       }
       try {
         warmUpRound(round, { method, level, alpha, drawLimit });
+        if (mainReads) pairColumns(mainReads[0], mainReads[1]); // the pairing step, on the sheet's own columns
       } catch {
         // Nothing depends on a warm-up round; the panel works the same without it.
       }
