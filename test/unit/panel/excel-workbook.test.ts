@@ -39,6 +39,8 @@ class World {
   writtenRanges: OfficeMockObject[] = [];
   writtenAddresses: string[] = [];
   sheetHandlers = new Map<string, Handler[]>();
+  /** When set, the next context.sync() rejects with this message (as Excel reports a failed batch), once. */
+  failNextSync: string | null = null;
   tableHandlers = new Map<string, Handler[]>();
   context!: OfficeMockObject;
 
@@ -204,6 +206,9 @@ class World {
         },
       },
       async sync() {
+        const failure = world.failNextSync;
+        world.failNextSync = null;
+        if (failure) throw new Error(failure);
         for (const m of world.created) await m.sync();
       },
     });
@@ -322,8 +327,10 @@ describe('ExcelWorkbook on office-addin-mock', () => {
 
   test('events are switched on again when a write fails', async () => {
     const w = demoWorld();
-    await expect(new ExcelWorkbook().writeCells('Missing!A1', [['x']])).rejects.toThrow(/ItemNotFound/);
-    expect(w.events.every((e) => e)).toBe(true);
+    // Excel reports a failed batch at sync, after events were switched off (e.g. a protected sheet).
+    w.failNextSync = 'AccessDenied: the sheet is protected';
+    await expect(new ExcelWorkbook().writeCells('North!E1', [['x']])).rejects.toThrow(/AccessDenied/);
+    expect(w.events).toEqual([false, true]);
   });
 
   test('addSheet picks an unused name, writes from A1 and shows the sheet', async () => {
