@@ -47,26 +47,26 @@ export class LiveScheduler {
   /** Call on every change notification; cheap and safe to call thousands of times. */
   changed(): void {
     if (this.stopped) return;
-    if (!this.pending) {
-      this.pending = true;
-      this.firstPendingAt = this.clock.now();
-      this.mergedCount = 0;
-    }
-    this.mergedCount++;
+    this.note();
     this.plan();
   }
 
   /** Refresh now unless one is running (then right after it), ignoring the gap: for user actions. */
   now(): void {
     if (this.stopped) return;
+    this.note();
+    this.lastStart = -Infinity;
+    this.plan();
+  }
+
+  /** Counts one more change into the refresh owed, starting its clock when none was owed. */
+  private note(): void {
     if (!this.pending) {
       this.pending = true;
       this.firstPendingAt = this.clock.now();
       this.mergedCount = 0;
     }
     this.mergedCount++;
-    this.lastStart = -Infinity;
-    this.plan();
   }
 
   /** True when no refresh is running, waiting for its turn, or owed to a change. */
