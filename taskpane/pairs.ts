@@ -7,6 +7,7 @@
  * hosts that can supply it directly do (Workbook.readColumnNumbers); otherwise numericColumn() converts a
  * readColumn result.
  */
+import { cellNumber } from '../src/functions/cells';
 import type { CellBlock } from './address';
 import type { ColumnSource, NumericColumnRead, RangeRead, Workbook } from './workbook';
 
@@ -25,11 +26,6 @@ export class PairingError extends Error {
 export function dataStart(read: ColumnRead): number {
   const first = read.values.length > 0 ? read.values[0][0] : undefined;
   return typeof first === 'string' && first === read.header && read.header !== read.address ? 1 : 0;
-}
-
-/** The number in a cell, or NaN when the cell does not count. */
-export function cellNumber(v: unknown): number {
-  return typeof v === 'number' && Number.isFinite(v) ? v : NaN;
 }
 
 /**
