@@ -41,6 +41,10 @@ export const PALETTE = {
   text: '#3b3b3b',
 };
 
+/** What every chart here shares: no animation (a redraw is instant), sized by its frame, and data handed over
+ *  already in Chart.js's own {x, y} form, so it is not parsed again. */
+const STATIC_CHART = { animation: false, responsive: true, maintainAspectRatio: false, parsing: false } as const;
+
 const FONT_STACK = "'Segoe UI', 'Segoe UI Web (West European)', -apple-system, BlinkMacSystemFont, Roboto, 'Helvetica Neue', sans-serif";
 Chart.defaults.font.family = FONT_STACK;
 Chart.defaults.font.size = 11;
@@ -153,10 +157,7 @@ export class PointPlot {
       type: 'scatter',
       data: { datasets: [] },
       options: {
-        animation: false,
-        responsive: true,
-        maintainAspectRatio: false,
-        parsing: false,
+        ...STATIC_CHART,
         interaction: { mode: 'nearest', intersect: true },
         layout: { padding: 2 },
         scales: {
@@ -280,10 +281,7 @@ export class IntervalPlot {
       type: 'scatter',
       data: { datasets: [] },
       options: {
-        animation: false,
-        responsive: true,
-        maintainAspectRatio: false,
-        parsing: false,
+        ...STATIC_CHART,
         events: [],
         layout: { padding: { left: 2, right: 8, top: 2, bottom: 2 } },
         scales: {
