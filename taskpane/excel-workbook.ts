@@ -60,6 +60,11 @@ function rectangular(cells: (string | number)[][]): (string | number)[][] {
   return cells.map((r) => (r.length === width ? r : [...r, ...Array<string>(width - r.length).fill('')]));
 }
 
+/** A loaded range (address, values, rowIndex, columnIndex) as the panel reads it: 1-based first row and column. */
+function rangeRead(r: Excel.Range, sheet: string): RangeRead {
+  return { address: r.address, sheet, firstRow: r.rowIndex + 1, firstColumn: r.columnIndex + 1, values: r.values };
+}
+
 export class ExcelWorkbook implements Workbook {
   async getSelection(): Promise<string> {
     return Excel.run(async (context) => {
@@ -103,14 +108,7 @@ export class ExcelWorkbook implements Workbook {
         const sheet = table.worksheet;
         sheet.load('name');
         await context.sync();
-        return {
-          address: body.address,
-          sheet: sheet.name,
-          firstRow: body.rowIndex + 1,
-          firstColumn: body.columnIndex + 1,
-          values: body.values,
-          header: source.column,
-        };
+        return { ...rangeRead(body, sheet.name), header: source.column };
       });
     }
     const read = await this.readRange(source.address);
@@ -134,13 +132,7 @@ export class ExcelWorkbook implements Workbook {
       if (range.isNullObject) {
         return { address, sheet: sheet.name, firstRow: block.firstRow, firstColumn: block.firstColumn, values: [] };
       }
-      return {
-        address: range.address,
-        sheet: sheet.name,
-        firstRow: range.rowIndex + 1,
-        firstColumn: range.columnIndex + 1,
-        values: range.values,
-      };
+      return rangeRead(range, sheet.name);
     });
   }
 
