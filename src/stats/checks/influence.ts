@@ -138,7 +138,7 @@ export function lineInfluence(x: ArrayLike<number>, residuals: ArrayLike<number>
       if (direct > 0) oneMinusH = direct;
     }
     const ei2 = e[i] * e[i];
-    cooksDistance[i] = s2 > 0 ? (ei2 * h) / (2 * s2 * oneMinusH * oneMinusH) : NaN;
+    cooksDistance[i] = cookOf(ei2, h, oneMinusH, s2);
     if (n < 4) {
       studentized[i] = NaN;
       return;
@@ -176,7 +176,7 @@ export function lineInfluence(x: ArrayLike<number>, residuals: ArrayLike<number>
       leverage[i] = h;
       const oneMinusH = 1 - h;
       const ei2 = e[i] * e[i];
-      cooksDistance[i] = s2 > 0 ? (ei2 * h) / (2 * s2 * oneMinusH * oneMinusH) : NaN;
+      cooksDistance[i] = cookOf(ei2, h, oneMinusH, s2);
       studentized[i] = studentizedOf(e[i], rss - ei2 / oneMinusH, floor0, n, oneMinusH);
     }
     for (let i = 0; i < n; i++) {
@@ -194,6 +194,11 @@ export function lineInfluence(x: ArrayLike<number>, residuals: ArrayLike<number>
   }
   giveBack(c, e);
   return { n, leverage, studentized, cooksDistance, maxLeverageIndex, maxStudentizedIndex, maxCookIndex };
+}
+
+/** D_i = e_i^2 h_i / (2 s^2 (1 - h_i)^2); undefined (NaN) when the points lie exactly on the line (s^2 = 0). */
+function cookOf(ei2: number, h: number, oneMinusH: number, s2: number): number {
+  return s2 > 0 ? (ei2 * h) / (2 * s2 * oneMinusH * oneMinusH) : NaN;
 }
 
 /** t_i = e_i / (s_(i) sqrt(1 - h_i)); infinite when, without point i, the rest lie on a line to rounding. */
