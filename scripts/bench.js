@@ -193,8 +193,6 @@ for (const n of SIZES) {
     Y[0] = [y[0] + ++salt * 1e-6];
     return [X, Y];
   };
-  // warm-up: let the JIT compile the code paths before timing
-  for (const id of ['COEF', 'INTERVAL', 'PVALUE', 'FLAGS', 'CHECKS', 'REPORT']) if (call(id) && n <= 1e5) try { call(id)(...fresh(), null, null); } catch {}
   const row = { n };
   for (const [label, id, extra] of [
     ['COEF pearson', 'COEF', ['pearson']],
