@@ -9,6 +9,7 @@
 
 export { selectKth } from '../src/stats/select';
 import { selectKth } from '../src/stats/select';
+import { borrowF64, giveBack } from '../src/stats/scratch';
 
 /**
  * Sample quantiles by R's default rule (type 7: Hyndman & Fan 1996, "Sample quantiles in statistical packages",
@@ -19,8 +20,11 @@ import { selectKth } from '../src/stats/select';
 export function typeSevenQuantiles(values: ArrayLike<number>, probabilities: number[]): number[] {
   const n = values.length;
   if (n === 0) return probabilities.map(() => NaN);
-  const work = Float64Array.from(values);
-  return probabilities.map((p) => {
+  // A pooled copy (selection reorders it): Float64Array.from walks the values through the iterator protocol and
+  // allocates 8n bytes on every redraw.
+  const work = borrowF64(n);
+  for (let i = 0; i < n; i++) work[i] = values[i];
+  const out = probabilities.map((p) => {
     const h = (n - 1) * p;
     const lo = Math.floor(h);
     const a = selectKth(work, lo);
@@ -30,6 +34,8 @@ export function typeSevenQuantiles(values: ArrayLike<number>, probabilities: num
     for (let i = lo + 1; i < n; i++) if (work[i] < b) b = work[i];
     return a + (h - lo) * (b - a);
   });
+  giveBack(work);
+  return out;
 }
 
 /** Index of the first element of sorted `s` that is >= v. */
