@@ -16,7 +16,7 @@ import type { CheckRow } from '../src/stats/checks/check-report';
 import { CorrelationResult, Method, StatsInputError } from '../src/stats/types';
 import { drawSample } from './draw-sample';
 import { ranksAmong, typeSevenQuantiles } from './order-stats';
-import type { PairedRows } from './pairs';
+import { pairedRows, PairedRows } from './pairs';
 import { readCorrelation } from './reading';
 
 export interface RelationshipOptions {
@@ -98,6 +98,64 @@ export function plottingPosition(rank: number, n: number): number {
 const now = (): number => (typeof performance !== 'undefined' ? performance.now() : Date.now());
 
 /**
+ * The last answers of the two steps of a redraw that one edited cell rarely changes, kept so the next redraw can
+ * reuse them. Both steps are pure functions of what is compared before reuse, so a reused answer is the one the
+ * step would compute again. Measured in the panel preview at 100,000 rows: together 8-10 ms of a redraw.
+ */
+const lastDraw = { n: -1, limit: -1, flagged: [] as number[], pick: new Int32Array(0) as Int32Array<ArrayBufferLike> };
+const lastSmooth = {
+  n: -1,
+  positions: new Int32Array(0) as Int32Array<ArrayBufferLike>,
+  x: new Float64Array(0),
+  y: new Float64Array(0),
+  curve: null as { x: Float64Array; y: Float64Array } | null,
+};
+
+/** drawSample(n, flagged, limit), reused while n, limit and the flagged positions stay the same. */
+function drawnPositions(n: number, flagged: number[], limit: number): Int32Array {
+  const same = lastDraw.n === n && lastDraw.limit === limit && lastDraw.flagged.length === flagged.length && lastDraw.flagged.every((f, k) => f === flagged[k]);
+  if (!same) {
+    lastDraw.pick = drawSample(n, flagged, limit);
+    lastDraw.n = n;
+    lastDraw.limit = limit;
+    lastDraw.flagged = flagged.slice();
+  }
+  return lastDraw.pick;
+}
+
+/**
+ * The LOWESS smooth of a fixed-hash sample of at most SMOOTH_LIMIT points. The sample's positions depend only on
+ * n, so an edit outside them leaves its input, and so the curve, unchanged: the curve is reused when every sampled
+ * (x, y) equals the last one (Object.is, so -0 and NaN count as changes).
+ */
+function smoothOf(x: Float64Array, y: Float64Array): { x: Float64Array; y: Float64Array } {
+  const n = x.length;
+  if (lastSmooth.n !== n) {
+    const base = drawSample(n, [], SMOOTH_LIMIT);
+    lastSmooth.x = Float64Array.from(base, (i) => x[i]);
+    lastSmooth.y = Float64Array.from(base, (i) => y[i]);
+    lastSmooth.n = n;
+    lastSmooth.curve = null;
+    lastSmooth.positions = base;
+  }
+  const base = lastSmooth.positions;
+  const sx = lastSmooth.x;
+  const sy = lastSmooth.y;
+  let same = lastSmooth.curve !== null;
+  for (let k = 0; k < base.length; k++) {
+    const i = base[k];
+    if (!Object.is(sx[k], x[i]) || !Object.is(sy[k], y[i])) {
+      same = false;
+      sx[k] = x[i];
+      sy[k] = y[i];
+    }
+  }
+  if (!same || !lastSmooth.curve) lastSmooth.curve = lowess(sx, sy);
+  // A copy: the caller owns its view (the panel's worker transfers the arrays, which would empty the kept ones).
+  return { x: lastSmooth.curve.x.slice(), y: lastSmooth.curve.y.slice() };
+}
+
+/**
  * Computes the view of one pair. Statistical input errors (too few pairs, a constant column) come back as a
  * failure with the core's message rather than an exception.
  */
@@ -123,7 +181,7 @@ export function analyseRelationship(p: PairedRows, opts: RelationshipOptions): R
     for (const i of pts.influential) reason[i] |= FLAG_INFLUENTIAL;
     if (pts.setsSlope >= 0) reason[pts.setsSlope] |= FLAG_SETS_SLOPE;
 
-    const pick = drawSample(n, pts.flagged, opts.drawLimit);
+    const pick = drawnPositions(n, pts.flagged, opts.drawLimit);
     const m = pick.length;
     const drawn: DrawnPoints = {
       rows: new Int32Array(m),
@@ -157,13 +215,7 @@ export function analyseRelationship(p: PairedRows, opts: RelationshipOptions): R
     // pool, so the next redraw reuses their pages instead of allocating and collecting 5 new columns.
     giveBack(pts.fitted, pts.residuals, pts.studentized, pts.leverage, pts.cooksDistance);
 
-    let smooth: RelationshipView['smooth'] = null;
-    if (n >= 4) {
-      const base = drawSample(n, [], SMOOTH_LIMIT);
-      const sx = Float64Array.from(base, (i) => x[i]);
-      const sy = Float64Array.from(base, (i) => y[i]);
-      smooth = lowess(sx, sy);
-    }
+    const smooth = n >= 4 ? smoothOf(x, y) : null;
 
     return {
       sheet: p.sheet,
@@ -198,14 +250,20 @@ export function isFailure(v: RelationshipView | RelationshipFailure): v is Relat
 export const WARM_UP_ROWS = 50000;
 
 /**
- * One round of the analysis on invented data (a line with noise, one outlier), run by the panel while it is idle after its first large redraw. The script engine compiles a
- * function for speed only after it has run a few times: without this, the 1st-5th redraws after opening a
- * 100,000-row sheet paid for that compilation. Measured in the panel preview (Chromium, 2-core test machine,
- * 3 runs of 8 edits at 100,000 rows): without warm-up the 3rd or 4th edit took 180-420 ms; with 6 rounds of
- * 50,000 rows every redraw took 58-166 ms. A round takes about 20 ms of idle time; nothing it computes is kept.
+ * One round of the analysis on n invented rows (a line with noise, one outlier), nothing kept. The panel runs it to
+ * get the script engine's compilation out of the way of the user's edits:
+ * - Priming, before the first analysis of a large sheet, on 6,000 rows. The engine optimises a function while its
+ *   first long loop is still running, so code after the loop, not yet run, is optimised without knowing what it
+ *   meets: each later call bails out there, and after a few such bail-outs the engine throws the code away and
+ *   starts over, leaving the next redraws unoptimised. Measured in the panel preview (Chromium 156, 2-core
+ *   machine, 3 runs of 8 edits at 100,000 rows): without priming the 5th edit took 130-190 ms where the others
+ *   took 50-110; with it no edit took over 116 ms. 6,000 rows take the same branches as 100,000 (over 5,000 the
+ *   normality check is D'Agostino-Pearson; from 100 Durbin-Watson is approximate).
+ * - Warm-up, in idle time after the first large redraw, on WARM_UP_ROWS rows: the script engine compiles a
+ *   function for speed only after it has run a few times. Without it the 1st-5th redraws after opening a
+ *   100,000-row sheet took 180-420 ms; with 6 rounds every redraw took 58-166 ms. A round takes about 20 ms.
  */
-export function warmUpRound(round: number, opts: RelationshipOptions): void {
-  const n = WARM_UP_ROWS;
+export function warmUpRound(round: number, opts: RelationshipOptions, n = WARM_UP_ROWS): void {
   let s = (round + 1) * 2654435761;
   const u = (): number => ((s = (Math.imul(s, 1664525) + 1013904223) >>> 0) + 0.5) / 4294967296;
   const x = new Float64Array(n);
@@ -222,5 +280,5 @@ export function warmUpRound(round: number, opts: RelationshipOptions): void {
     rows[i] = i + 2;
   }
   y[n >> 1] += 500;
-  analyseRelationship({ x, y, rows, sheet: '', xHeader: 'x', yHeader: 'y', total: n, skipped: 0 }, opts);
+  analyseRelationship(pairedRows(x, y, rows, '', n, 0, 'x', 'y'), opts);
 }

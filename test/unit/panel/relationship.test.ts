@@ -5,7 +5,9 @@
  */
 import * as fs from 'fs';
 import * as path from 'path';
-import { analyseRelationship, FLAG_OUTLIER, isFailure, plottingPosition, RelationshipView } from '../../../taskpane/relationship';
+import { analyseRelationship, FLAG_OUTLIER, isFailure, plottingPosition, RelationshipView, SMOOTH_LIMIT } from '../../../taskpane/relationship';
+import { drawSample } from '../../../taskpane/draw-sample';
+import { lowess } from '../../../src/stats/lowess';
 import type { PairedRows } from '../../../taskpane/pairs';
 
 const R = JSON.parse(fs.readFileSync(path.resolve(__dirname, '../../fixtures/panel/panel-r.json'), 'utf8'));
@@ -90,6 +92,50 @@ describe('large inputs', () => {
     expect(v.flaggedRows).toContain(779);
     const drawn = new Set(v.drawn.rows);
     for (const r of v.flaggedRows.slice(0, 2000)) expect(drawn.has(r)).toBe(true);
+  });
+});
+
+describe('redraws after an edit', () => {
+  // The smooth and the drawing sample are kept between redraws and reused when their inputs are unchanged; what a
+  // redraw shows must still equal the same steps computed afresh (lowess itself is checked against R in
+  // test/unit/stats/lowess.test.ts).
+  const n = 5000;
+  const x: number[] = [];
+  const y: number[] = [];
+  for (let i = 0; i < n; i++) {
+    x.push(((i * 7919) % 1000) / 10);
+    y.push(0.5 * x[i] + ((i * 104729) % 97) / 10);
+  }
+  const base = drawSample(n, [], SMOOTH_LIMIT);
+  const inSample = base[10];
+  let outside = 0;
+  while (base.includes(outside)) outside++;
+  const fresh = (xs: number[], ys: number[]) => lowess(Float64Array.from(base, (i) => xs[i]), Float64Array.from(base, (i) => ys[i]));
+
+  test('the smooth follows an edit inside its sample and stays for one outside it', () => {
+    const v1 = analyseRelationship(pairs(x, y), opts) as RelationshipView;
+    expect(Array.from(v1.smooth!.y)).toEqual(Array.from(fresh(x, y).y));
+    v1.smooth!.y.fill(NaN); // the caller owns its copy (the worker transfers it away)
+    const y2 = y.slice();
+    y2[inSample] += 40;
+    const v2 = analyseRelationship(pairs(x, y2), opts) as RelationshipView;
+    expect(Array.from(v2.smooth!.y)).toEqual(Array.from(fresh(x, y2).y));
+    const y3 = y2.slice();
+    y3[outside] += 40;
+    const v3 = analyseRelationship(pairs(x, y3), opts) as RelationshipView;
+    expect(Array.from(v3.smooth!.y)).toEqual(Array.from(fresh(x, y3).y));
+    expect(Array.from(v3.smooth!.x)).toEqual(Array.from(fresh(x, y3).x));
+  });
+
+  test('the drawn points follow a change in the flagged rows', () => {
+    const y2 = y.slice();
+    y2[outside] += 1000; // a gross outlier, not in the hash sample: drawn only because it is flagged
+    const v = analyseRelationship(pairs(x, y2), opts) as RelationshipView;
+    expect(v.flaggedRows).toContain(outside + 2);
+    expect(Array.from(v.drawn.rows)).toContain(outside + 2);
+    const back = analyseRelationship(pairs(x, y), opts) as RelationshipView;
+    expect(Array.from(back.drawn.rows)).not.toContain(outside + 2);
+    expect(Array.from(back.drawn.rows)).toEqual(Array.from(drawSample(n, back.flaggedRows.map((r) => r - 2), opts.drawLimit), (i) => i + 2));
   });
 });
 
