@@ -73,6 +73,14 @@ export interface PairedRows {
 }
 
 /**
+ * Builds a PairedRows. Every PairedRows is made here, so all have one object shape: the analysis, compiled for
+ * speed on the first ones it sees (the panel's warm-up rounds), then meets no other shape and is not recompiled.
+ */
+export function pairedRows(x: Float64Array, y: Float64Array, rows: Int32Array, sheet: string, total: number, skipped: number, xHeader: string, yHeader: string): PairedRows {
+  return { x, y, rows, sheet, total, skipped, xHeader, yHeader };
+}
+
+/**
  * Pairs two columns row by row.
  * @throws PairingError when the columns sit on different sheets or rows, or their data lengths differ.
  */
@@ -100,7 +108,7 @@ export function pairColumns(xc: NumericColumnRead, yc: NumericColumnRead): Paire
       j++;
     }
   }
-  return { x, y, rows, sheet: xc.sheet, total, skipped: total - used, xHeader: xc.header, yHeader: yc.header };
+  return pairedRows(x, y, rows, xc.sheet, total, total - used, xc.header, yc.header);
 }
 
 /**

@@ -22,6 +22,7 @@ import { describeSource, PairChoice, PairPicker } from './pair-picker';
 import { dataBlock, pairColumns, PairingError, readNumericColumn } from './pairs';
 import { formatCount, formatPValue, formatR } from './reading';
 import {
+  analyseRelationship,
   DEFAULT_RELATIONSHIP_OPTIONS,
   FLAG_INFLUENTIAL,
   FLAG_OUTLIER,
@@ -645,6 +646,10 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
       }
       if (gen !== generation) return;
       lap('read');
+      if (!primed && reads[0].numbers.length >= WARM_UP_ROWS && !compute.usesWorker(reads[0].numbers.length)) {
+        prime(reads);
+        lap('prime');
+      }
       mainReads = reads;
       picker.showResolved({ header: reads[0].header, where: where(reads[0]) }, { header: reads[1].header, where: where(reads[1]) });
       let pairs;
@@ -730,14 +735,34 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
     }
   }
 
+  // Before the first analysis of a large sheet: three rounds of it on PRIME_ROWS invented rows, and the pairing of
+  // the sheet's first PRIME_ROWS rows, so that every step has run once, start to end, before the script engine
+  // optimises it during the first long call (see warmUpRound). About 40 ms, once.
+  let primed = false;
+  const PRIME_ROWS = 6000;
+  function prime(reads: [NumericColumnRead, NumericColumnRead]): void {
+    primed = true;
+    const head = (c: NumericColumnRead): NumericColumnRead => ({ ...c, numbers: c.numbers.subarray(0, PRIME_ROWS) });
+    try {
+      for (let round = 0; round < 3; round++) {
+        warmUpRound(round, { method, level, alpha, drawLimit }, PRIME_ROWS);
+        pairColumns(head(reads[0]), head(reads[1]));
+      }
+    } catch {
+      // Nothing depends on priming; the panel works the same without it.
+    }
+  }
+
   const scheduler = new LiveScheduler(refresh, opts.debounceMs ?? 200);
 
-  // After the first large redraw, a few rounds of the analysis on invented data while the page is idle, so the
-  // script engine has compiled it before the user's next edits (see warmUpRound). One round per idle slot; a
-  // round waits while a refresh runs.
+  // After the first large redraw, a few rounds of the analysis while the page is idle, so the script engine has
+  // compiled it before the user's next edits (see warmUpRound): six on invented data, which vary the kinds of
+  // numbers, then four on the sheet's own columns, paired and analysed as the next edit will be. One round per idle
+  // slot; a round waits while a refresh runs.
   let warmedUp = false;
   let warming = false;
-  const WARM_UP_ROUNDS = 6;
+  const INVENTED_ROUNDS = 6;
+  const WARM_UP_ROUNDS = INVENTED_ROUNDS + 4;
   function warmUp(round: number): void {
     warming = !destroyed && round < WARM_UP_ROUNDS;
     if (!warming) return;
@@ -748,8 +773,9 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
         return;
       }
       try {
-        warmUpRound(round, { method, level, alpha, drawLimit });
-        if (mainReads) pairColumns(mainReads[0], mainReads[1]); // the pairing step, on the sheet's own columns
+        const options = { method, level, alpha, drawLimit };
+        if (round < INVENTED_ROUNDS) warmUpRound(round, options);
+        else if (mainReads) analyseRelationship(pairColumns(mainReads[0], mainReads[1]), options);
       } catch {
         // Nothing depends on a warm-up round; the panel works the same without it.
       }
