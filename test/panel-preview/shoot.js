@@ -62,6 +62,11 @@ async function main() {
           await page.waitForTimeout(300);
         }
         console.log(scenario, JSON.stringify(timings));
+        const summary = (key) => {
+          const v = timings.map((t) => t[key]).sort((a, b) => a - b);
+          return `median ${Math.round(v[v.length >> 1])} ms, max ${Math.round(v[v.length - 1])} ms, over 200 ms: ${v.filter((t) => t > 200).length} of ${v.length}`;
+        };
+        console.log(`redraw on screen after an edit: ${summary('latency')}; every chart painted: ${summary('allCharts')}`);
         console.log('best of 10 without drawing:', JSON.stringify(await page.evaluate(() => window.previewTimeSteps(10))));
       }
       if (scenario === 'demo' || scenario === 'markup') {
