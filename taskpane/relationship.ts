@@ -131,12 +131,12 @@ function drawnPositions(n: number, flagged: number[], limit: number): Int32Array
 function smoothOf(x: Float64Array, y: Float64Array): { x: Float64Array; y: Float64Array } {
   const n = x.length;
   if (lastSmooth.n !== n) {
-    const base = drawSample(n, [], SMOOTH_LIMIT);
-    lastSmooth.x = Float64Array.from(base, (i) => x[i]);
-    lastSmooth.y = Float64Array.from(base, (i) => y[i]);
+    // New positions: the loop below gathers their values, and with no curve kept it computes one.
+    lastSmooth.positions = drawSample(n, [], SMOOTH_LIMIT);
+    lastSmooth.x = new Float64Array(lastSmooth.positions.length);
+    lastSmooth.y = new Float64Array(lastSmooth.positions.length);
     lastSmooth.n = n;
     lastSmooth.curve = null;
-    lastSmooth.positions = base;
   }
   const base = lastSmooth.positions;
   const sx = lastSmooth.x;
