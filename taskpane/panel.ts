@@ -28,6 +28,7 @@ import {
   FLAG_OUTLIER,
   FLAG_SETS_SLOPE,
   isFailure,
+  RelationshipOptions,
   RelationshipView,
   WARM_UP_ROWS,
   warmUpRound,
@@ -615,6 +616,9 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
       : 'The interval of the difference excludes zero.'}${view.skipped > 0 ? ` ${formatCount(view.skipped)} incomplete rows skipped.` : ''}`;
   }
 
+  /** The analysis options the panel's controls hold now. */
+  const relationshipOptions = (): RelationshipOptions => ({ method, level, alpha, drawLimit });
+
   // ---- refresh ------------------------------------------------------------------------------------------------
   async function refresh(cause: RefreshCause): Promise<void> {
     const gen = ++generation;
@@ -667,7 +671,7 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
       if (inWorker || pairs.x.length >= compute.workerThreshold) {
         showProgress(`Computing on ${formatCount(pairs.x.length)} rows${inWorker ? ' in the background; the sheet stays usable' : ''}…`);
       }
-      const view = await compute.analyse(pairs, { method, level, alpha, drawLimit }, () => undefined);
+      const view = await compute.analyse(pairs, relationshipOptions(), () => undefined);
       if (gen !== generation) return;
       lap('compute');
       showProgress(null);
@@ -745,7 +749,7 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
     const head = (c: NumericColumnRead): NumericColumnRead => ({ ...c, numbers: c.numbers.subarray(0, PRIME_ROWS) });
     try {
       for (let round = 0; round < 3; round++) {
-        warmUpRound(round, { method, level, alpha, drawLimit }, PRIME_ROWS);
+        warmUpRound(round, relationshipOptions(), PRIME_ROWS);
         pairColumns(head(reads[0]), head(reads[1]));
       }
     } catch {
@@ -773,9 +777,8 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
         return;
       }
       try {
-        const options = { method, level, alpha, drawLimit };
-        if (round < INVENTED_ROUNDS) warmUpRound(round, options);
-        else if (mainReads) analyseRelationship(pairColumns(mainReads[0], mainReads[1]), options);
+        if (round < INVENTED_ROUNDS) warmUpRound(round, relationshipOptions());
+        else if (mainReads) analyseRelationship(pairColumns(mainReads[0], mainReads[1]), relationshipOptions());
       } catch {
         // Nothing depends on a warm-up round; the panel works the same without it.
       }
