@@ -4,10 +4,10 @@
  * (src/stats/compare-*.ts); this module only lines up the columns for the chosen design. Pure.
  */
 import { formatBlock } from './address';
-import { compareIndependentSamples } from '../src/stats/compare-independent';
-import { compareSeparateSamples } from '../src/stats/compare-separate';
-import { compareSharedSamples } from '../src/stats/compare-shared';
-import { ComparisonResult, pearsonFisherInterval } from '../src/stats/comparison';
+import { compareIndependentSamples } from '../src/stats/compare/independent';
+import { compareSeparateSamples } from '../src/stats/compare/separate';
+import { compareSharedSamples } from '../src/stats/compare/shared';
+import { ComparisonResult, pearsonFisherInterval } from '../src/stats/compare/comparison';
 import { Interval, StatsInputError } from '../src/stats/types';
 import { Design, DesignDetection } from './design';
 import { completeRows, dataBlock, pairColumns, PairingError } from './pairs';

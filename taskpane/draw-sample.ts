@@ -1,4 +1,4 @@
-import { selectKth } from '../src/stats/select';
+import { selectKth } from '../src/stats/internal/select';
 /**
  * Which points to draw when there are more rows than a chart can show legibly. The statistics always use every
  * row; only the drawing is thinned. Pure.

@@ -7,9 +7,9 @@
  * Pure.
  */
 
-export { selectKth } from '../src/stats/select';
-import { selectKth } from '../src/stats/select';
-import { borrowF64, giveBack } from '../src/stats/scratch';
+export { selectKth } from '../src/stats/internal/select';
+import { selectKth } from '../src/stats/internal/select';
+import { borrowF64, giveBack } from '../src/stats/internal/scratch';
 
 /**
  * Sample quantiles by R's default rule (type 7: Hyndman & Fan 1996, "Sample quantiles in statistical packages",

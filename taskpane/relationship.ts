@@ -6,12 +6,12 @@
  *
  * Statistics use every row; only the drawing is thinned (see draw-sample.ts).
  */
-import { correlate } from '../src/stats/correlate';
+import { correlate } from '../src/stats/correlation/correlate';
 import { normalQuantile } from '../src/stats/distributions';
-import { lowess } from '../src/stats/lowess';
+import { lowess } from '../src/stats/plots/lowess';
 import { recommendCoefficient, Recommendation } from '../src/stats/checks/advice';
 import { runChecks } from '../src/stats/checks/run-checks';
-import { giveBack } from '../src/stats/scratch';
+import { giveBack } from '../src/stats/internal/scratch';
 import type { CheckRow } from '../src/stats/checks/check-report';
 import { CorrelationResult, Method, StatsInputError } from '../src/stats/types';
 import { drawSample } from './draw-sample';

@@ -13,7 +13,7 @@
  * signature of that (an over-long or whole-column reference such as B:B); such input is refused with a message
  * rather than answered with a wrong number. Shorter runs cannot be told apart from real zeros: the README says so.
  */
-import { borrowF64 } from '../stats/scratch';
+import { borrowF64 } from '../stats/internal/scratch';
 import { StatsInputError, Tail, Method, TAILS, METHODS } from '../stats/types';
 
 /** A range argument as the host passes it: rows of cells. */

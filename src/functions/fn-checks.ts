@@ -7,8 +7,8 @@
 import { recommendCoefficient, plainReading, coefficientSymbol } from '../stats/checks/advice';
 import { CheckReport } from '../stats/checks/check-report';
 import { runChecks } from '../stats/checks/run-checks';
-import { correlatePrepared } from '../stats/correlate';
-import { PreparedPairs } from '../stats/prepared';
+import { correlatePrepared } from '../stats/correlation/correlate';
+import { PreparedPairs } from '../stats/correlation/prepared';
 import { Method, METHODS } from '../stats/types';
 import { CellRange, guard, optAlpha, optLevel, optMethod, PairedColumns, requirePairs } from './cells';
 import { sharedPairs } from './shared-pairs';

@@ -2,12 +2,12 @@
  * Cell functions that compare two correlations, correlate two columns while holding others fixed, and lay out
  * many correlations at once. Thin adapter: read cells, call the core, shape the answer.
  */
-import { compareIndependent, compareIndependentSamples } from '../stats/compare-independent';
-import { compareSeparateSamples } from '../stats/compare-separate';
-import { compareSharedSamples } from '../stats/compare-shared';
-import { ComparisonResult, requireRows } from '../stats/comparison';
-import { assertMatrixFits, correlationMatrix, MATRIX_SHOWS, MatrixShow } from '../stats/matrix';
-import { partialCorrelation } from '../stats/partial';
+import { compareIndependent, compareIndependentSamples } from '../stats/compare/independent';
+import { compareSeparateSamples } from '../stats/compare/separate';
+import { compareSharedSamples } from '../stats/compare/shared';
+import { ComparisonResult, requireRows } from '../stats/compare/comparison';
+import { assertMatrixFits, correlationMatrix, MATRIX_SHOWS, MatrixShow } from '../stats/compare/matrix';
+import { partialCorrelation } from '../stats/compare/partial';
 import { StatsInputError } from '../stats/types';
 import { CellRange, guard, omitted, optLevel, optMethod, optTail, optionWord, readPairs, requiredNumber } from './cells';
 import { rangeShape, readAlignedVectors, readColumns, readHeaderRow, readWithControls, refuseZeroTail } from './cells-matrix';

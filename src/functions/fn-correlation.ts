@@ -2,7 +2,7 @@
  * Cell functions for one correlation: the coefficient, its interval, its p-value, the pairs used, and the check
  * of a correlation reported elsewhere. Thin adapter: read cells, call the core, shape the answer.
  */
-import { checkReported, correlatePrepared } from '../stats/correlate';
+import { checkReported, correlatePrepared } from '../stats/correlation/correlate';
 import { CorrelationResult } from '../stats/types';
 import { StatsInputError } from '../stats/types';
 import { guard, optLevel, optMethod, optTail, requirePairs, requiredNumber, CellRange } from './cells';

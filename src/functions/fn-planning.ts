@@ -2,7 +2,7 @@
  * Cell functions for planning a study of a correlation: power, sample size and the smallest detectable
  * correlation, for the test of "no correlation". Thin adapter: read the arguments, call the core.
  */
-import { correlationPower, detectableCorrelation, sampleSizeForCorrelation } from '../stats/power';
+import { correlationPower, detectableCorrelation, sampleSizeForCorrelation } from '../stats/planning/power';
 import { guard, optAlpha, optNumber, optTail, requiredNumber } from './cells';
 
 /**

@@ -10,8 +10,8 @@
  * that spans several host turns pins it (pinShared) while it runs, and a pinned entry is left to the garbage
  * collector instead.
  */
-import { PreparedPairs } from '../stats/prepared';
-import { giveBack } from '../stats/scratch';
+import { PreparedPairs } from '../stats/correlation/prepared';
+import { giveBack } from '../stats/internal/scratch';
 import { assertSameSize, CellRange, lastNumberIndex, PairedColumns, readPairsFromVectors, readVector, vectorLength } from './cells';
 
 const MAX_ENTRIES = 16;

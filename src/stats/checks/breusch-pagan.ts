@@ -1,7 +1,7 @@
-import { borrowF64, giveBack } from '../scratch';
-import { coMoments, powerOfTwoScale } from '../comoments';
+import { borrowF64, giveBack } from '../internal/scratch';
+import { coMoments, powerOfTwoScale } from '../correlation/comoments';
 import { chiSquareSf } from '../distributions';
-import { pearsonFromMoments } from '../pearson';
+import { pearsonFromMoments } from '../correlation/pearson';
 import { StatsInputError } from '../types';
 
 /** Koenker's studentized Breusch-Pagan test with x as the only variance regressor. */

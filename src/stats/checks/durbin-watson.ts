@@ -1,8 +1,8 @@
-import { powerOfTwoScale } from '../comoments';
+import { powerOfTwoScale } from '../correlation/comoments';
 import { normalSf } from '../distributions';
 import { StatsInputError } from '../types';
 import { quadraticFormTails } from './imhof';
-import { symmetricEigenvalues } from './symmetric-eigenvalues';
+import { symmetricEigenvalues } from '../internal/symmetric-eigenvalues';
 
 /** The Durbin-Watson test of the line's residuals, in the order given. */
 export interface DurbinWatsonResult {

@@ -1,4 +1,4 @@
-import { integrate } from '../quadrature';
+import { integrate } from '../internal/quadrature';
 
 /** The two tail probabilities of a quadratic form in standard normals at 0. */
 export interface QuadraticFormTails {

@@ -1,5 +1,5 @@
-import { borrowF64, giveBack } from '../scratch';
-import { powerOfTwoScale } from '../comoments';
+import { borrowF64, giveBack } from '../internal/scratch';
+import { powerOfTwoScale } from '../correlation/comoments';
 import { studentTSf } from '../distributions';
 import { StatsInputError } from '../types';
 

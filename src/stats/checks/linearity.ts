@@ -1,8 +1,8 @@
-import { borrowF64, giveBack } from '../scratch';
-import { powerOfTwoScale } from '../comoments';
+import { borrowF64, giveBack } from '../internal/scratch';
+import { powerOfTwoScale } from '../correlation/comoments';
 import { fSf } from '../distributions';
 import { StatsInputError } from '../types';
-import { distinctUpToThree } from '../distinct';
+import { distinctUpToThree } from '../correlation/distinct';
 
 /** The F test for adding x^2 to a straight-line fit. */
 export interface CurvatureTest {

@@ -1,4 +1,4 @@
-import { powerOfTwoScale } from '../comoments';
+import { powerOfTwoScale } from '../correlation/comoments';
 import { StatsInputError } from '../types';
 
 /** Shape of one column: sample skewness and excess kurtosis from the central moments. */

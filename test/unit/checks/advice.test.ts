@@ -5,7 +5,7 @@
  */
 import { plainReading, recommendCoefficient, strengthWord, tauOnRScale } from '../../../src/stats/checks/advice';
 import { runChecks } from '../../../src/stats/checks/run-checks';
-import { correlate } from '../../../src/stats/correlate';
+import { correlate } from '../../../src/stats/correlation/correlate';
 import { Method } from '../../../src/stats/types';
 import { R } from './fixtures';
 import { simulate } from './simulated-data';

@@ -1,6 +1,6 @@
 /** Koenker's studentized Breusch-Pagan test against R 4.2.2 lmtest::bptest(m, studentize = TRUE) (checks-r.json). */
 import { breuschPagan } from '../../../src/stats/checks/breusch-pagan';
-import { fitLine } from '../../../src/stats/regression';
+import { fitLine } from '../../../src/stats/correlation/regression';
 import { expectRel } from '../../helpers/close';
 import { R, RChecks } from './fixtures';
 import { simulate } from './simulated-data';

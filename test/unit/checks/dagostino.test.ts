@@ -4,7 +4,7 @@
  */
 import { dagostinoPearson, kurtosisTest, kurtosisZ, skewnessTest, skewnessZ } from '../../../src/stats/checks/dagostino';
 import { shapeMoments } from '../../../src/stats/checks/moments';
-import { fitLine } from '../../../src/stats/regression';
+import { fitLine } from '../../../src/stats/correlation/regression';
 import { StatsInputError } from '../../../src/stats/types';
 import { expectRel } from '../../helpers/close';
 import { SCIPY, ScipyTests } from './fixtures';

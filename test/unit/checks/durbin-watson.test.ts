@@ -5,9 +5,9 @@
  */
 import { durbinWatson } from '../../../src/stats/checks/durbin-watson';
 import { quadraticFormTails } from '../../../src/stats/checks/imhof';
-import { integrate } from '../../../src/stats/quadrature';
-import { symmetricEigenvalues } from '../../../src/stats/checks/symmetric-eigenvalues';
-import { fitLine } from '../../../src/stats/regression';
+import { integrate } from '../../../src/stats/internal/quadrature';
+import { symmetricEigenvalues } from '../../../src/stats/internal/symmetric-eigenvalues';
+import { fitLine } from '../../../src/stats/correlation/regression';
 import { expectRel } from '../../helpers/close';
 import { R, RChecks } from './fixtures';
 import { simulate } from './simulated-data';

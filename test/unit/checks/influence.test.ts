@@ -3,7 +3,7 @@
  * hatvalues, rstudent, cooks.distance, qf(0.5, 2, n - 2), and car::outlierTest (checks-r.json, checks-r.R).
  */
 import { bonferroniOutlierP, cookCutoff, lineInfluence } from '../../../src/stats/checks/influence';
-import { fitLine } from '../../../src/stats/regression';
+import { fitLine } from '../../../src/stats/correlation/regression';
 import { expectRel } from '../../helpers/close';
 import { R, RChecks } from './fixtures';
 import { simulate } from './simulated-data';

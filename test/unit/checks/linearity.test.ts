@@ -3,7 +3,7 @@
  * lmtest::resettest(m, power = 2, type = "fitted") (fixture checks-r.json, script checks-r.R).
  */
 import { curvatureTest } from '../../../src/stats/checks/linearity';
-import { fitLine } from '../../../src/stats/regression';
+import { fitLine } from '../../../src/stats/correlation/regression';
 import { expectRel } from '../../helpers/close';
 import { R, RChecks } from './fixtures';
 import { simulate } from './simulated-data';

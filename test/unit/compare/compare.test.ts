@@ -2,10 +2,10 @@
  * Comparing two correlations: published worked examples (Fisher 1925, Steiger 1980, Zou 2007, as listed in
  * REFERENCES.md) and R 4.2.2 psych::r.test (test/fixtures/compare/compare-r.json, script beside it).
  */
-import { compareIndependent, compareIndependentSamples } from '../../../src/stats/compare-independent';
-import { compareShared, compareSharedSamples } from '../../../src/stats/compare-shared';
-import { compareSeparate, compareSeparateSamples } from '../../../src/stats/compare-separate';
-import { ComparisonResult } from '../../../src/stats/comparison';
+import { compareIndependent, compareIndependentSamples } from '../../../src/stats/compare/independent';
+import { compareShared, compareSharedSamples } from '../../../src/stats/compare/shared';
+import { compareSeparate, compareSeparateSamples } from '../../../src/stats/compare/separate';
+import { ComparisonResult } from '../../../src/stats/compare/comparison';
 import { StatsInputError, Tail } from '../../../src/stats/types';
 import { expectRel } from '../../helpers/close';
 import { expectAbs, R, RTails } from './fixtures';

@@ -7,7 +7,7 @@
  */
 import { MATRIX } from '../../../src/functions/fn-compare';
 import { CellError } from '../../../src/functions/cells';
-import { assertMatrixFits, correlationMatrix, MATRIX_LIMITS, predictedMatrixMs } from '../../../src/stats/matrix';
+import { assertMatrixFits, correlationMatrix, MATRIX_LIMITS, predictedMatrixMs } from '../../../src/stats/compare/matrix';
 import { StatsInputError } from '../../../src/stats/types';
 
 /** Park & Miller (1988) uniforms: deterministic data. */

@@ -2,9 +2,9 @@
  * The correlation matrix and p-value adjustment against R 4.2.2: cor.test on each pair's complete rows and
  * p.adjust(holm / BH) across the distinct pairs (test/fixtures/compare/compare-r.json, script compare-r.R).
  */
-import { correlate } from '../../../src/stats/correlate';
-import { correlationMatrix } from '../../../src/stats/matrix';
-import { benjaminiHochbergAdjust, holmAdjust } from '../../../src/stats/p-adjust';
+import { correlate } from '../../../src/stats/correlation/correlate';
+import { correlationMatrix } from '../../../src/stats/compare/matrix';
+import { benjaminiHochbergAdjust, holmAdjust } from '../../../src/stats/compare/p-adjust';
 import { Method } from '../../../src/stats/types';
 import { expectRel } from '../../helpers/close';
 import { R, Region, withNaN } from './fixtures';

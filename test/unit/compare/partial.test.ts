@@ -2,7 +2,7 @@
  * Partial correlation against R 4.2.2: Pearson's r of lm() residuals, psych 2.2.9 partial.r, and pt() for the
  * p-values (test/fixtures/compare/compare-r.json, script compare-r.R beside it).
  */
-import { partialCorrelation } from '../../../src/stats/partial';
+import { partialCorrelation } from '../../../src/stats/compare/partial';
 import { Tail } from '../../../src/stats/types';
 import { expectRel } from '../../helpers/close';
 import { expectAbs, R, Region } from './fixtures';

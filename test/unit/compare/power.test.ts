@@ -17,9 +17,9 @@ import {
   detectableCorrelation,
   sampleSizeFisherZ,
   sampleSizeForCorrelation,
-} from '../../../src/stats/power';
-import { correlationTail } from '../../../src/stats/r-distribution';
-import { integrate } from '../../../src/stats/quadrature';
+} from '../../../src/stats/planning/power';
+import { correlationTail } from '../../../src/stats/distributions/r-distribution';
+import { integrate } from '../../../src/stats/internal/quadrature';
 import { expectRel } from '../../helpers/close';
 import { EXACT } from './fixtures-exact';
 import { expectAbs, R } from './fixtures';

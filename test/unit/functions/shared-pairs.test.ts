@@ -6,8 +6,8 @@
 import { CHECKS } from '../../../src/functions/fn-checks';
 import { COEF, PVALUE } from '../../../src/functions/fn-correlation';
 import { clearSharedPairs, pinShared, sharedPairs, sharedPairsStats } from '../../../src/functions/shared-pairs';
-import { correlate } from '../../../src/stats/correlate';
-import { clearScratch, scratchStats } from '../../../src/stats/scratch';
+import { correlate } from '../../../src/stats/correlation/correlate';
+import { clearScratch, scratchStats } from '../../../src/stats/internal/scratch';
 import { Method } from '../../../src/stats/types';
 import { expectRel } from '../../helpers/close';
 

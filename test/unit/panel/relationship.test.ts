@@ -7,7 +7,7 @@ import * as fs from 'fs';
 import * as path from 'path';
 import { analyseRelationship, FLAG_OUTLIER, isFailure, plottingPosition, RelationshipView, SMOOTH_LIMIT } from '../../../taskpane/relationship';
 import { drawSample } from '../../../taskpane/draw-sample';
-import { lowess } from '../../../src/stats/lowess';
+import { lowess } from '../../../src/stats/plots/lowess';
 import type { PairedRows } from '../../../taskpane/pairs';
 
 const R = JSON.parse(fs.readFileSync(path.resolve(__dirname, '../../fixtures/panel/panel-r.json'), 'utf8'));

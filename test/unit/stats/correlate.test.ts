@@ -5,8 +5,8 @@
  * - scipy 1.10.1 spearmanr / kendalltau on the same datasets (scipy-spearman.json, make-fixture-scipy.py);
  * - published values collected in shared REFERENCES.md, named beside each check.
  */
-import { checkReported, correlate } from '../../../src/stats/correlate';
-import { fitLine } from '../../../src/stats/regression';
+import { checkReported, correlate } from '../../../src/stats/correlation/correlate';
+import { fitLine } from '../../../src/stats/correlation/regression';
 import { Method, Tail } from '../../../src/stats/types';
 import { expectRel } from '../../helpers/close';
 import rFix from '../../fixtures/correlation/r-correlation.json';

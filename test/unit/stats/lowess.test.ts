@@ -6,7 +6,7 @@
  */
 import * as fs from 'fs';
 import * as path from 'path';
-import { lowess } from '../../../src/stats/lowess';
+import { lowess } from '../../../src/stats/plots/lowess';
 import { StatsInputError } from '../../../src/stats/types';
 
 interface LowessCase {

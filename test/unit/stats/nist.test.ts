@@ -4,9 +4,9 @@
  * Accuracy is reported as the log relative error LRE (McCullough 1998, "Assessing the reliability of
  * statistical software: Part I", The American Statistician 52:358-366): correct significant digits.
  */
-import { coMoments } from '../../../src/stats/comoments';
-import { correlate } from '../../../src/stats/correlate';
-import { fitLine } from '../../../src/stats/regression';
+import { coMoments } from '../../../src/stats/correlation/comoments';
+import { correlate } from '../../../src/stats/correlation/correlate';
+import { fitLine } from '../../../src/stats/correlation/regression';
 import { logRelativeError } from '../../helpers/close';
 import norris from '../../fixtures/nist/norris.json';
 

@@ -2,7 +2,7 @@
  * The scratch pool behind the million-row sorts and checks (src/stats/scratch.ts): bounded, reuses what was given
  * back, and lets newer sizes displace older ones. Pure bookkeeping, so the expectations follow from its contract.
  */
-import { borrowF64, borrowU32, clearScratch, giveBack, scratchStats } from '../../../src/stats/scratch';
+import { borrowF64, borrowU32, clearScratch, giveBack, scratchStats } from '../../../src/stats/internal/scratch';
 
 beforeEach(() => clearScratch());
 

@@ -1,7 +1,7 @@
 /** argsort against the definition: a stable ascending order, checked at sizes on both sides of each switch
  * (comparison sort, 8-bit and 16-bit radix digits), with negatives, -0, ties, huge and tiny magnitudes. */
-import { argsort } from '../../../src/stats/sort';
-import { averageRanks } from '../../../src/stats/ranks';
+import { argsort } from '../../../src/stats/internal/sort';
+import { averageRanks } from '../../../src/stats/correlation/ranks';
 
 function lcg(seed: number): () => number {
   let s = seed >>> 0;

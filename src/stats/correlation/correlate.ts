@@ -1,0 +1,158 @@
+import { distinctUpToThree } from './distinct';
+import { exactDiscordantTails, KendallCounts, tauB, varianceOfS } from './kendall';
+import { assertVaries, clipUnit, pearsonFromMoments } from './pearson';
+import { PreparedPairs } from './prepared';
+import { fisherInterval, pFromT, pFromZ, tFromR } from './fisher';
+import { CoefficientName, CorrelationResult, Interval, Method, StatsInputError, Tail } from '../types';
+
+export interface CorrelateOptions {
+  method: Method;
+  tail: Tail;
+  /** Confidence level of the two-sided interval, in (0, 1). */
+  level: number;
+}
+
+/** Pearson on two-valued columns is the point-biserial (one column two-valued) or phi (both) coefficient. */
+export function pearsonName(x: ArrayLike<number>, y: ArrayLike<number>): CoefficientName {
+  const bx = distinctUpToThree(x) === 2;
+  const by = distinctUpToThree(y) === 2;
+  if (bx && by) return 'phi';
+  if (bx || by) return 'point-biserial';
+  return 'Pearson';
+}
+
+/** Fisher-z standard errors by method; NaN when n is too small for the interval. */
+export function fisherStandardError(method: Method, r: number, n: number): number {
+  switch (method) {
+    case 'pearson':
+      // Fisher (1921), Metron 1:3-32: var(atanh r) ~ 1/(n - 3).
+      return n > 3 ? 1 / Math.sqrt(n - 3) : NaN;
+    case 'spearman':
+      // Bonett & Wright (2000), "Sample size requirements for estimating Pearson, Kendall and Spearman
+      // correlations", Psychometrika 65:23-28.
+      return n > 3 ? Math.sqrt((1 + (r * r) / 2) / (n - 3)) : NaN;
+    case 'kendall':
+      // Fieller, Hartley & Pearson (1957), "Tests for rank correlation coefficients. I", Biometrika 44:470-481.
+      return n > 4 ? Math.sqrt(0.437 / (n - 4)) : NaN;
+  }
+}
+
+const INTERVAL_METHOD: Record<Method, string> = {
+  pearson: 'Fisher z, SE = 1/sqrt(n - 3)',
+  spearman: 'Fisher z, SE = sqrt((1 + r^2/2)/(n - 3)) (Bonett & Wright 2000)',
+  kendall: 'Fisher z, SE = sqrt(0.437/(n - 4)) (Fieller, Hartley & Pearson 1957)',
+};
+
+/** The two-sided interval, or NaN bounds when n is too small for the method's standard error. */
+export function correlationInterval(method: Method, r: number, n: number, level: number): Interval {
+  const se = fisherStandardError(method, r, n);
+  if (!Number.isFinite(se)) return { lower: NaN, upper: NaN, level, method: INTERVAL_METHOD[method] };
+  return fisherInterval(r, se, level, INTERVAL_METHOD[method]);
+}
+
+/** Kendall's p-value: exact null distribution without ties for n < 50, else normal approximation of S. */
+export function kendallPValue(c: KendallCounts, tail: Tail): { p: number; test: CorrelationResult['test']; pMethod: string } {
+  const noTies = c.tiedX === 0 && c.tiedY === 0;
+  if (noTies && c.n < 50) {
+    const { lower, upper } = exactDiscordantTails(c.n, c.discordant);
+    // Few discordant pairs = positive association.
+    let p: number;
+    if (tail === 'positive') p = lower;
+    else if (tail === 'negative') p = upper;
+    else p = Math.min(1, 2 * Math.min(lower, upper));
+    return { p, test: { name: 'S', value: c.s }, pMethod: 'exact null distribution of S (no ties, n < 50)' };
+  }
+  const v = varianceOfS(c);
+  const z = v > 0 ? c.s / Math.sqrt(v) : 0;
+  return {
+    p: pFromZ(z, tail),
+    test: { name: 'z', value: z },
+    pMethod: 'normal approximation of S with tie-corrected variance, no continuity correction',
+  };
+}
+
+/**
+ * Correlation of two equal-length finite columns with its p-value and Fisher-z interval.
+ * - Pearson (named point-biserial or phi on two-valued columns): t test with n - 2 df.
+ * - Spearman (Spearman 1904, Am. J. Psychol. 15:72-101): Pearson on average ranks; t approximation, n - 2 df.
+ * - Kendall tau-b: see kendallPValue.
+ * @throws StatsInputError for fewer than 3 pairs or a constant column.
+ * @example correlate(x, y, { method: 'pearson', tail: 'both', level: 0.95 }).statistic
+ */
+export function correlate(x: ArrayLike<number>, y: ArrayLike<number>, opts: CorrelateOptions): CorrelationResult {
+  if (y.length !== x.length) throw new StatsInputError('unequal-length', 'x and y must hold the same number of values');
+  return correlatePrepared(new PreparedPairs(x, y), opts);
+}
+
+/** As correlate, on prepared columns whose ranks, counts and moments are shared with other callers. */
+export function correlatePrepared(prep: PreparedPairs, opts: CorrelateOptions): CorrelationResult {
+  const { x, y, n } = prep;
+  if (n < 3) throw new StatsInputError('too-few', `only ${n} usable pairs: at least 3 are needed`);
+  const { method, tail, level } = opts;
+  if (method === 'kendall') {
+    assertVaries(prep.moments);
+    const c = prep.kendall;
+    const r = tauB(c);
+    const pv = kendallPValue(c, tail);
+    return {
+      method, name: 'Kendall tau-b', statistic: r, pValue: pv.p, tail,
+      interval: correlationInterval(method, r, n, level), n, test: pv.test, pMethod: pv.pMethod,
+    };
+  }
+  let r: number;
+  let name: CoefficientName;
+  if (method === 'spearman') {
+    assertVaries(prep.moments);
+    const m = prep.rankMoments;
+    assertVaries(m);
+    r = pearsonFromMoments(m);
+    name = 'Spearman';
+  } else {
+    const m = prep.moments;
+    assertVaries(m);
+    r = pearsonFromMoments(m);
+    name = pearsonName(x, y);
+  }
+  r = clipUnit(r);
+  const df = n - 2;
+  const t = tFromR(r, df);
+  return {
+    method, name, statistic: r, pValue: pFromT(t, df, tail), tail,
+    interval: correlationInterval(method, r, n, level), n,
+    test: { name: 't', value: t, df },
+    pMethod: method === 'spearman' ? 't approximation, df = n - 2' : 't test, df = n - 2',
+  };
+}
+
+/** Interval and p-value for a correlation reported elsewhere, from r and n alone. */
+export interface ReportedResult {
+  interval: Interval;
+  pValue: number;
+  tail: Tail;
+  method: Method;
+  test: CorrelationResult['test'];
+  pMethod: string;
+}
+
+/**
+ * Checks a reported correlation from r and n only: the same interval and test the raw data would give, with
+ * Kendall's p from the normal approximation without ties, var(tau) = 2(2n + 5)/(9n(n - 1)) (Kendall 1938).
+ * @throws StatsInputError when |r| >= 1 or n < 4 (n < 5 for Kendall, whose interval needs n - 4 > 0).
+ */
+export function checkReported(r: number, n: number, opts: CorrelateOptions): ReportedResult {
+  const { method, tail, level } = opts;
+  if (!(Math.abs(r) < 1)) throw new StatsInputError('out-of-range', `r must lie strictly between -1 and 1 (got ${r})`);
+  if (!(n >= 4) || !Number.isInteger(n)) throw new StatsInputError('out-of-range', `n must be a whole number of at least 4 (got ${n})`);
+  if (method === 'kendall' && n < 5) throw new StatsInputError('out-of-range', 'n must be at least 5 for Kendall\'s interval');
+  const interval = correlationInterval(method, r, n, level);
+  if (method === 'kendall') {
+    const z = (3 * r * Math.sqrt(n * (n - 1))) / Math.sqrt(2 * (2 * n + 5));
+    return { interval, pValue: pFromZ(z, tail), tail, method, test: { name: 'z', value: z }, pMethod: 'normal approximation, no ties assumed' };
+  }
+  const df = n - 2;
+  const t = tFromR(r, df);
+  return {
+    interval, pValue: pFromT(t, df, tail), tail, method, test: { name: 't', value: t, df },
+    pMethod: method === 'spearman' ? 't approximation, df = n - 2' : 't test, df = n - 2',
+  };
+}

@@ -1,2 +1,0 @@
-/** Public surface of the statistics core. */
-export * from './types';
