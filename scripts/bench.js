@@ -71,7 +71,7 @@ function median(a) {
 /**
  * Times fn over RUNS runs after one untimed first call; `fresh(k)` gives run k's arguments (a changed cell each
  * run: no cache hits). The first call is returned apart (`first`): it also pays for compiling the code and for
- * mapping the pages of the work arrays the later calls reuse (src/stats/scratch.ts), so it shows what the first
+ * mapping the pages of the work arrays the later calls reuse (src/stats/internal/scratch.ts), so it shows what the first
  * recalculation after opening a workbook costs, and the median shows every recalculation after it.
  */
 function time(fresh, fn) {

@@ -3,7 +3,7 @@
  * (2007) interval and the p-value of the test that fits the design. The statistics are the core's
  * (src/stats/compare-*.ts); this module only lines up the columns for the chosen design. Pure.
  */
-import { formatBlock } from './address';
+import { formatBlock } from '../src/sheet/a1';
 import { compareIndependentSamples } from '../src/stats/compare/independent';
 import { compareSeparateSamples } from '../src/stats/compare/separate';
 import { compareSharedSamples } from '../src/stats/compare/shared';

@@ -4,7 +4,7 @@
  * fallback to the main thread when no worker can be started. Results are plain data either way.
  */
 import type { PairedRows } from './pairs';
-import { analyseRelationship, RelationshipFailure, RelationshipOptions, RelationshipView } from './relationship';
+import { analyseRelationship, RedrawMemory, RelationshipFailure, RelationshipOptions, RelationshipView } from './relationship';
 
 /** Message to the worker. */
 export interface WorkerRequest {
@@ -23,6 +23,8 @@ export class ComputeClient {
   private worker: Worker | null = null;
   private broken = false;
   private nextId = 1;
+  /** What the last main-thread redraw left to reuse (the worker keeps its own). */
+  readonly memory = new RedrawMemory();
 
   constructor(
     private readonly workerUrl: string | null,
@@ -52,7 +54,7 @@ export class ComputeClient {
       onStage('computing');
       await new Promise((resolve) => setTimeout(resolve, 0));
     }
-    return analyseRelationship(pairs, options);
+    return analyseRelationship(pairs, options, this.memory);
   }
 
   private inWorker(pairs: PairedRows, options: RelationshipOptions, onStage: (stage: string) => void): Promise<RelationshipView | RelationshipFailure> {

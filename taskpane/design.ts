@@ -3,7 +3,7 @@
  * workbook. The statistics differ by design (independent groups; one variable in common on the same rows; two
  * separate pairs on the same rows), so the panel proposes one and the user may override it. Pure.
  */
-import { CellBlock, formatBlock } from './address';
+import { CellBlock, formatBlock } from '../src/sheet/a1';
 
 export type Design = 'independent' | 'shared' | 'separate';
 

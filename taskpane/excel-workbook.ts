@@ -13,7 +13,8 @@
  * - Writes switch events off (context.runtime.enableEvents) so that the panel's own writes do not come back as
  *   change notifications, and switch them on again whatever happens.
  */
-import { CellBlock, columnLetters, MAX_ROWS, parseAddress } from './address';
+import { blocksIntersect, CellBlock, formatBlock, MAX_ROWS, parseAddress } from '../src/sheet/a1';
+import { headerText } from '../src/sheet/cells';
 import type { ColumnSource, RangeRead, TableInfo, Workbook } from './workbook';
 
 /** Excel's rules for sheet names: at most 31 characters, none of : \ / ? * [ ], not blank. */
@@ -36,23 +37,18 @@ export function uniqueSheetName(wanted: string, existing: string[]): string {
 
 /** The reference part of an address ("B2:B49"), without its sheet. */
 function localReference(b: CellBlock): string {
-  const tl = `${columnLetters(b.firstColumn)}${b.firstRow}`;
-  const br = `${columnLetters(b.lastColumn)}${b.lastRow}`;
-  return tl === br ? tl : `${tl}:${br}`;
+  return formatBlock(b, { withoutSheet: true });
 }
 
 /** Whether a change at `address` (on the watched sheet) touches a watched block's columns and rows. */
 export function touches(changedAddress: string, watched: CellBlock): boolean {
   const blocks = parseAddress(changedAddress, watched.sheet);
   if (!blocks) return true; // unknown shape: better one refresh too many than a missed change
-  return blocks.some(
-    (b) => b.firstColumn <= watched.lastColumn && watched.firstColumn <= b.lastColumn && b.firstRow <= watched.lastRow && watched.firstRow <= b.lastRow,
-  );
+  return blocks.some((b) => blocksIntersect({ ...b, sheet: watched.sheet }, watched));
 }
 
 function headerOf(values: unknown[][], fallback: string): string {
-  const first = values.length > 0 ? values[0][0] : undefined;
-  return typeof first === 'string' && first.trim() !== '' ? first : fallback;
+  return headerText(values.length > 0 ? values[0][0] : undefined) ?? fallback;
 }
 
 function rectangular(cells: (string | number)[][]): (string | number)[][] {
@@ -192,7 +188,7 @@ export class ExcelWorkbook implements Workbook {
       const sheet = at.sheet ? context.workbook.worksheets.getItem(at.sheet) : context.workbook.worksheets.getActiveWorksheet();
       context.runtime.enableEvents = false;
       try {
-        const range = sheet.getRange(`${columnLetters(at.firstColumn)}${at.firstRow}`).getResizedRange(block.length - 1, block[0].length - 1);
+        const range = sheet.getRange(formatBlock({ ...at, lastRow: at.firstRow, lastColumn: at.firstColumn }, { withoutSheet: true })).getResizedRange(block.length - 1, block[0].length - 1);
         range.formulas = block;
         await context.sync();
       } finally {

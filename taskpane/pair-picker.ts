@@ -2,7 +2,8 @@
  * Picking a pair of columns: from the current selection (one block two columns wide, two columns picked with
  * Ctrl, or one column at a time), or by header from a table (the pick then follows the table as it grows).
  */
-import { formatBlock, oneColumnOf, twoColumnsOf } from './address';
+import { formatBlock } from '../src/sheet/a1';
+import { oneColumnOf, twoColumnsOf } from './address';
 import { button, el, fill, select, setOptions } from './dom';
 import type { ColumnSource, TableInfo, Workbook } from './workbook';
 

@@ -1,14 +1,16 @@
 /**
  * Turns column reads from the workbook into complete numeric pairs, remembering each pair's sheet row so that a
- * point on a chart can lead back to its row. The rule for what counts is the cell functions' rule (see
- * src/functions/cells.ts): finite numbers count; blanks, text, TRUE/FALSE and errors are skipped pairwise. Pure.
+ * point on a chart can lead back to its row. What counts as a number and which rows are complete are the rules
+ * the cell functions use too (src/sheet/cells.ts, src/sheet/pairs.ts): finite numbers count; blanks, text,
+ * TRUE/FALSE and errors are skipped pairwise. Pure.
  *
  * Everything downstream works on NumericColumnRead (a Float64Array per column, NaN for cells that do not count):
  * hosts that can supply it directly do (Workbook.readColumnNumbers); otherwise numericColumn() converts a
  * readColumn result.
  */
-import { cellNumber } from '../src/functions/cells';
-import type { CellBlock } from './address';
+import type { CellBlock } from '../src/sheet/a1';
+import { readVector } from '../src/sheet/cells';
+import { completeRows as completeSheetRows } from '../src/sheet/pairs';
 import type { ColumnSource, NumericColumnRead, RangeRead, Workbook } from './workbook';
 
 /** One column as readColumn gives it, with its header. */
@@ -38,11 +40,7 @@ export function numericColumn(read: ColumnRead): NumericColumnRead {
     if (row.length > 1) throw new PairingError(`${read.address} is more than one column wide: pick one column for each variable.`);
   }
   const start = dataStart(read);
-  const numbers = new Float64Array(Math.max(0, rows.length - start));
-  for (let i = start; i < rows.length; i++) {
-    const row = rows[i];
-    numbers[i - start] = cellNumber(row === undefined ? undefined : row[0]);
-  }
+  const numbers = rows.length === 0 ? new Float64Array(0) : readVector(rows, read.address, { from: start });
   return { address: read.address, sheet: read.sheet, firstRow: read.firstRow + start, column: read.firstColumn, header: read.header, numbers };
 }
 
@@ -94,21 +92,11 @@ export function pairColumns(xc: NumericColumnRead, yc: NumericColumnRead): Paire
     throw new PairingError(`${xc.header} and ${yc.header} start on different rows: each pair must be read from the same rows.`);
   }
   const total = xs.length;
-  let used = 0;
-  for (let i = 0; i < total; i++) if (xs[i] === xs[i] && ys[i] === ys[i]) used++;
-  const x = new Float64Array(used);
-  const y = new Float64Array(used);
-  const rows = new Int32Array(used);
-  let j = 0;
-  for (let i = 0; i < total; i++) {
-    if (xs[i] === xs[i] && ys[i] === ys[i]) {
-      x[j] = xs[i];
-      y[j] = ys[i];
-      rows[j] = xc.firstRow + i;
-      j++;
-    }
-  }
-  return pairedRows(x, y, rows, xc.sheet, total, total - used, xc.header, yc.header);
+  const kept = completeSheetRows([xs, ys]);
+  const [x, y] = kept.columns;
+  const rows = new Int32Array(x.length);
+  for (let j = 0; j < rows.length; j++) rows[j] = xc.firstRow + (kept.index ? kept.index[j] : j);
+  return pairedRows(x, y, rows, xc.sheet, total, kept.skipped, xc.header, yc.header);
 }
 
 /**
@@ -118,7 +106,6 @@ export function pairColumns(xc: NumericColumnRead, yc: NumericColumnRead): Paire
 export function completeRows(columns: Float64Array[]): { columns: Float64Array[]; skipped: number } {
   const n = columns[0].length;
   if (columns.some((c) => c.length !== n)) throw new PairingError('The columns have different lengths: pick columns on the same rows.');
-  const keep: number[] = [];
-  for (let i = 0; i < n; i++) if (columns.every((c) => c[i] === c[i])) keep.push(i);
-  return { columns: columns.map((c) => Float64Array.from(keep, (i) => c[i])), skipped: n - keep.length };
+  const kept = completeSheetRows(columns);
+  return { columns: kept.columns, skipped: kept.skipped };
 }

@@ -11,8 +11,10 @@
  * "error"); each point chart's wrapper carries data-drawn-count and data-flagged-rows; a read-only debug handle
  * is returned and also published as window.__covaryPanel.
  */
-import { CellBlock, formatBlock, twoColumnsOf } from './address';
+import { CellBlock, formatBlock } from '../src/sheet/a1';
+import { twoColumnsOf } from './address';
 import { ComputeClient } from './compute-client';
+import { describeComparison } from '../src/stats/compare/comparison';
 import { CompareFailure, CompareView, computeComparison, isCompareFailure } from './compare-view';
 import { IntervalPlot, PlotPoint, PointPlot } from './charts';
 import { Design, DESIGN_LABELS, designProblem, detectDesign, DesignDetection } from './design';
@@ -611,7 +613,7 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
     cmpTiles.p.value.textContent = formatPValue(r.pValue);
     cmpTiles.p.value.setAttribute('data-value', String(r.pValue));
     const crosses = r.interval.lower < 0 && r.interval.upper > 0;
-    cmpMethod.textContent = `Pearson correlations. ${r.method}. ${crosses
+    cmpMethod.textContent = `Pearson correlations. ${describeComparison(r)}. ${crosses
       ? 'The interval of the difference includes zero: these data do not show the two correlations differ.'
       : 'The interval of the difference excludes zero.'}${view.skipped > 0 ? ` ${formatCount(view.skipped)} incomplete rows skipped.` : ''}`;
   }
@@ -778,7 +780,7 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
       }
       try {
         if (round < INVENTED_ROUNDS) warmUpRound(round, relationshipOptions());
-        else if (mainReads) analyseRelationship(pairColumns(mainReads[0], mainReads[1]), relationshipOptions());
+        else if (mainReads) analyseRelationship(pairColumns(mainReads[0], mainReads[1]), relationshipOptions(), compute.memory);
       } catch {
         // Nothing depends on a warm-up round; the panel works the same without it.
       }

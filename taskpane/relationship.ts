@@ -6,16 +6,16 @@
  *
  * Statistics use every row; only the drawing is thinned (see draw-sample.ts).
  */
-import { correlate } from '../src/stats/correlation/correlate';
-import { normalQuantile } from '../src/stats/distributions';
-import { lowess } from '../src/stats/plots/lowess';
+import { sheetRowNaming } from '../src/sheet/naming';
 import { recommendCoefficient, Recommendation } from '../src/stats/checks/advice';
-import { runChecks } from '../src/stats/checks/run-checks';
-import { giveBack } from '../src/stats/internal/scratch';
 import type { CheckRow } from '../src/stats/checks/check-report';
+import { checksOf } from '../src/stats/checks/checked';
+import { correlatePrepared } from '../src/stats/correlation/correlate';
+import { PreparedPairs } from '../src/stats/correlation/prepared';
+import { lowess } from '../src/stats/plots/lowess';
+import { normalScores, quartileLine } from '../src/stats/plots/qq';
 import { CorrelationResult, Method, StatsInputError } from '../src/stats/types';
 import { drawSample } from './draw-sample';
-import { ranksAmong, typeSevenQuantiles } from './order-stats';
 import { pairedRows, PairedRows } from './pairs';
 import { readCorrelation } from './reading';
 
@@ -86,102 +86,94 @@ export interface RelationshipFailure {
   error: string;
 }
 
-/**
- * Plotting positions for a normal Q-Q plot, as R's ppoints(): (i - a)/(n + 1 - 2a) with a = 3/8 for n <= 10
- * (Blom 1958, Statistical Estimates and Transformed Beta-Variables, Wiley) and a = 1/2 above (Hazen 1914).
- */
-export function plottingPosition(rank: number, n: number): number {
-  const a = n <= 10 ? 3 / 8 : 1 / 2;
-  return (rank + 1 - a) / (n + 1 - 2 * a);
-}
-
 const now = (): number => (typeof performance !== 'undefined' ? performance.now() : Date.now());
 
 /**
  * The last answers of the two steps of a redraw that one edited cell rarely changes, kept so the next redraw can
  * reuse them. Both steps are pure functions of what is compared before reuse, so a reused answer is the one the
- * step would compute again. Measured in the panel preview at 100,000 rows: together 8-10 ms of a redraw.
+ * step would compute again. Measured in the panel preview at 100,000 rows: together 8-10 ms of a redraw. Owned by
+ * whoever analyses one pair again and again (the panel; its worker holds its own).
  */
-const lastDraw = { n: -1, limit: -1, flagged: [] as number[], pick: new Int32Array(0) as Int32Array<ArrayBufferLike> };
-const lastSmooth = {
-  n: -1,
-  positions: new Int32Array(0) as Int32Array<ArrayBufferLike>,
-  x: new Float64Array(0),
-  y: new Float64Array(0),
-  curve: null as { x: Float64Array; y: Float64Array } | null,
-};
+export class RedrawMemory {
+  private draw = { n: -1, limit: -1, flagged: [] as number[], pick: new Int32Array(0) as Int32Array<ArrayBufferLike> };
+  private smooth = {
+    n: -1,
+    positions: new Int32Array(0) as Int32Array<ArrayBufferLike>,
+    x: new Float64Array(0),
+    y: new Float64Array(0),
+    curve: null as { x: Float64Array; y: Float64Array } | null,
+  };
 
-/** drawSample(n, flagged, limit), reused while n, limit and the flagged positions stay the same. */
-function drawnPositions(n: number, flagged: number[], limit: number): Int32Array {
-  const same = lastDraw.n === n && lastDraw.limit === limit && lastDraw.flagged.length === flagged.length && lastDraw.flagged.every((f, k) => f === flagged[k]);
-  if (!same) {
-    lastDraw.pick = drawSample(n, flagged, limit);
-    lastDraw.n = n;
-    lastDraw.limit = limit;
-    lastDraw.flagged = flagged.slice();
-  }
-  return lastDraw.pick;
-}
-
-/**
- * The LOWESS smooth of a fixed-hash sample of at most SMOOTH_LIMIT points. The sample's positions depend only on
- * n, so an edit outside them leaves its input, and so the curve, unchanged: the curve is reused when every sampled
- * (x, y) equals the last one (Object.is, so -0 and NaN count as changes).
- */
-function smoothOf(x: Float64Array, y: Float64Array): { x: Float64Array; y: Float64Array } {
-  const n = x.length;
-  if (lastSmooth.n !== n) {
-    // New positions: the loop below gathers their values, and with no curve kept it computes one.
-    lastSmooth.positions = drawSample(n, [], SMOOTH_LIMIT);
-    lastSmooth.x = new Float64Array(lastSmooth.positions.length);
-    lastSmooth.y = new Float64Array(lastSmooth.positions.length);
-    lastSmooth.n = n;
-    lastSmooth.curve = null;
-  }
-  const base = lastSmooth.positions;
-  const sx = lastSmooth.x;
-  const sy = lastSmooth.y;
-  let same = lastSmooth.curve !== null;
-  for (let k = 0; k < base.length; k++) {
-    const i = base[k];
-    if (!Object.is(sx[k], x[i]) || !Object.is(sy[k], y[i])) {
-      same = false;
-      sx[k] = x[i];
-      sy[k] = y[i];
+  /** drawSample(n, flagged, limit), reused while n, limit and the flagged positions stay the same. */
+  drawnPositions(n: number, flagged: number[], limit: number): Int32Array {
+    const d = this.draw;
+    const same = d.n === n && d.limit === limit && d.flagged.length === flagged.length && d.flagged.every((f, k) => f === flagged[k]);
+    if (!same) {
+      d.pick = drawSample(n, flagged, limit);
+      d.n = n;
+      d.limit = limit;
+      d.flagged = flagged.slice();
     }
+    return d.pick;
   }
-  if (!same || !lastSmooth.curve) lastSmooth.curve = lowess(sx, sy);
-  // A copy: the caller owns its view (the panel's worker transfers the arrays, which would empty the kept ones).
-  return { x: lastSmooth.curve.x.slice(), y: lastSmooth.curve.y.slice() };
+
+  /**
+   * The LOWESS smooth of a fixed-hash sample of at most SMOOTH_LIMIT points. The sample's positions depend only on
+   * n, so an edit outside them leaves its input, and so the curve, unchanged: the curve is reused when every
+   * sampled (x, y) equals the last one (Object.is, so -0 and NaN count as changes).
+   */
+  smoothOf(x: Float64Array, y: Float64Array): { x: Float64Array; y: Float64Array } {
+    const m = this.smooth;
+    const n = x.length;
+    if (m.n !== n) {
+      // New positions: the loop below gathers their values, and with no curve kept it computes one.
+      m.positions = drawSample(n, [], SMOOTH_LIMIT);
+      m.x = new Float64Array(m.positions.length);
+      m.y = new Float64Array(m.positions.length);
+      m.n = n;
+      m.curve = null;
+    }
+    const base = m.positions;
+    const sx = m.x;
+    const sy = m.y;
+    let same = m.curve !== null;
+    for (let k = 0; k < base.length; k++) {
+      const i = base[k];
+      if (!Object.is(sx[k], x[i]) || !Object.is(sy[k], y[i])) {
+        same = false;
+        sx[k] = x[i];
+        sy[k] = y[i];
+      }
+    }
+    if (!same || !m.curve) m.curve = lowess(sx, sy);
+    // A copy: the caller owns its view (the panel's worker transfers the arrays, which would empty the kept ones).
+    return { x: m.curve.x.slice(), y: m.curve.y.slice() };
+  }
 }
 
 /**
- * Computes the view of one pair. Statistical input errors (too few pairs, a constant column) come back as a
- * failure with the core's message rather than an exception.
+ * Computes the view of one pair, through the same core entry points as the cell functions (prepared pairs, the
+ * memoised check report; src/stats/checks/checked.ts). Statistical input errors (too few pairs, a constant column)
+ * come back as a failure with the core's message rather than an exception.
+ * @param memory what the last redraw of this pair left to reuse; a fresh one reuses nothing
  */
-export function analyseRelationship(p: PairedRows, opts: RelationshipOptions): RelationshipView | RelationshipFailure {
+export function analyseRelationship(p: PairedRows, opts: RelationshipOptions, memory: RedrawMemory = new RedrawMemory()): RelationshipView | RelationshipFailure {
   const t0 = now();
+  const { x, y, rows } = p;
+  const prepared = new PreparedPairs(x, y);
   try {
-    const { x, y, rows } = p;
     const n = x.length;
-    const correlation = correlate(x, y, { method: opts.method, tail: 'both', level: opts.level });
-    const report = runChecks(x, y, { alpha: opts.alpha, rows });
+    const correlation = correlatePrepared(prepared, { method: opts.method, tail: 'both', level: opts.level });
+    const report = checksOf(prepared, opts.alpha, sheetRowNaming(rows));
     const pts = report.points;
-
-    // Chambers, Cleveland, Kleiner & Tukey (1983), Graphical Methods for Data Analysis, sec. 6.3: the reference
-    // line through the first and third quartiles (as R's qqline).
-    const [q1, q3] = typeSevenQuantiles(pts.residuals, [0.25, 0.75]);
-    const z1 = normalQuantile(0.25);
-    const z3 = normalQuantile(0.75);
-    const qqSlope = (q3 - q1) / (z3 - z1);
-    const qqLine = { slope: qqSlope, intercept: q1 - qqSlope * z1 };
+    const qqLine = quartileLine(pts.residuals);
 
     const reason = new Uint8Array(n);
     for (const i of pts.outliers) reason[i] |= FLAG_OUTLIER;
     for (const i of pts.influential) reason[i] |= FLAG_INFLUENTIAL;
     if (pts.setsSlope >= 0) reason[pts.setsSlope] |= FLAG_SETS_SLOPE;
 
-    const pick = drawnPositions(n, pts.flagged, opts.drawLimit);
+    const pick = memory.drawnPositions(n, pts.flagged, opts.drawLimit);
     const m = pick.length;
     const drawn: DrawnPoints = {
       rows: new Int32Array(m),
@@ -195,8 +187,8 @@ export function analyseRelationship(p: PairedRows, opts: RelationshipOptions): R
       cooksDistance: new Float64Array(m),
       leverage: new Float64Array(m),
     };
-    // Ranks of the drawn residuals among all n residuals, for their Q-Q abscissae.
-    const ranks = ranksAmong(pts.residuals, Float64Array.from(pick, (i) => pts.residuals[i]));
+    // Q-Q abscissae of the drawn residuals, from their ranks among all n residuals.
+    const scores = normalScores(pts.residuals, Float64Array.from(pick, (i) => pts.residuals[i]));
     for (let k = 0; k < m; k++) {
       const i = pick[k];
       drawn.rows[k] = rows[i];
@@ -204,18 +196,14 @@ export function analyseRelationship(p: PairedRows, opts: RelationshipOptions): R
       drawn.y[k] = y[i];
       drawn.fitted[k] = pts.fitted[i];
       drawn.residuals[k] = pts.residuals[i];
-      drawn.normalScore[k] = normalQuantile(plottingPosition(ranks[k], n));
+      drawn.normalScore[k] = scores[k];
       drawn.flags[k] = reason[i];
       drawn.studentized[k] = pts.studentized[i];
       drawn.cooksDistance[k] = pts.cooksDistance[i];
       drawn.leverage[k] = pts.leverage[i];
     }
 
-    // The per-point columns of all n rows are done with (the view keeps only the drawn ones): back to the scratch
-    // pool, so the next redraw reuses their pages instead of allocating and collecting 5 new columns.
-    giveBack(pts.fitted, pts.residuals, pts.studentized, pts.leverage, pts.cooksDistance);
-
-    const smooth = n >= 4 ? smoothOf(x, y) : null;
+    const smooth = n >= 4 ? memory.smoothOf(x, y) : null;
 
     return {
       sheet: p.sheet,
@@ -239,6 +227,11 @@ export function analyseRelationship(p: PairedRows, opts: RelationshipOptions): R
   } catch (e) {
     if (e instanceof StatsInputError) return { error: e.message };
     throw e;
+  } finally {
+    // The per-point columns of all n rows, the ranks and the sorted orders are done with (the view keeps only the
+    // drawn points): back to the core's pool, so the next redraw reuses their pages instead of allocating and
+    // collecting new columns.
+    prepared.release();
   }
 }
 

@@ -3,7 +3,7 @@
  * and a report sheet. Formulas (not pasted values) so the results stay live in the workbook after the panel is
  * closed. Pure: builds cell blocks and addresses; the panel writes them through the Workbook interface.
  */
-import { CellBlock, columnLetters, formatBlock, quoteSheet } from './address';
+import { CellBlock, formatBlock } from '../src/sheet/a1';
 import type { ColumnSource } from './workbook';
 import type { Method } from '../src/stats/types';
 
@@ -35,7 +35,7 @@ export function columnReference(ref: ColumnRef, targetSheet: string, a1 = false)
     return plain ? `${ref.source.table}[${name}]` : `${ref.source.table}[[${escapeColumnName(name)}]]`;
   }
   const block = ref.block.sheet === targetSheet ? { ...ref.block, sheet: '' } : ref.block;
-  return formatBlock(block, true);
+  return formatBlock(block, { absolute: true });
 }
 
 export interface FormulaOptions {
@@ -104,7 +104,7 @@ export function allBlank(values: unknown[][]): boolean {
 
 /** Top-left address of a block, with its sheet. */
 export function topLeftOf(b: CellBlock): string {
-  return `${quoteSheet(b.sheet)}!${columnLetters(b.firstColumn)}${b.firstRow}`;
+  return formatBlock({ ...b, lastRow: b.firstRow, lastColumn: b.firstColumn });
 }
 
 /** The lines of caution repeated on the report sheet. */

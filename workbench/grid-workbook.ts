@@ -4,6 +4,7 @@
  * as "", error cells read as their code ("#VALUE!"), table columns that follow the table as it grows.
  */
 import type { ColumnSource, NumericColumnRead, RangeRead, TableInfo, Workbook } from '../taskpane/workbook';
+import { cellNumber, headerText } from '../src/sheet/cells';
 import { Area, formatArea, intersects, parseArea } from './a1';
 import { CellValue, isErrorValue } from './cell-values';
 import type { GridView } from './grid-view';
@@ -40,8 +41,7 @@ export class GridWorkbook implements Workbook {
     }
     // As Excel's adapter answers: the values include the first cell, which is the header when it is text.
     const read = this.read(this.parse(source.address));
-    const first = read.values[0]?.[0];
-    const header = typeof first === 'string' && first.trim() !== '' ? first : read.address;
+    const header = headerText(read.values[0]?.[0]) ?? read.address;
     return { ...read, header };
   }
 
@@ -56,8 +56,8 @@ export class GridWorkbook implements Workbook {
       header = this.headers(t.table)[area.left - t.table.left];
     } else {
       area = this.parse(source.address);
-      const first = this.model.value(area.sheet, area.top, area.left);
-      if (typeof first === 'string' && first.trim() !== '') {
+      const first = headerText(this.model.value(area.sheet, area.top, area.left));
+      if (first !== null) {
         header = first;
         area = { ...area, top: area.top + 1 };
       } else {
@@ -68,7 +68,7 @@ export class GridWorkbook implements Workbook {
     const numbers = new Float64Array(n);
     for (let i = 0; i < n; i++) {
       const v = this.model.value(area.sheet, area.top + i, area.left);
-      numbers[i] = typeof v === 'number' && Number.isFinite(v) ? v : NaN;
+      numbers[i] = cellNumber(v);
     }
     return { address: formatArea(area), sheet: area.sheet, firstRow: area.top, column: area.left, header, numbers };
   }

@@ -5,14 +5,17 @@
  * with every other function (and the panel) through the shared pairs cache.
  */
 import { recommendCoefficient, plainReading, coefficientSymbol } from '../stats/checks/advice';
+import { CellRange } from '../sheet/cells';
+import { pointNaming } from '../sheet/naming';
 import { CheckReport } from '../stats/checks/check-report';
-import { runChecks } from '../stats/checks/run-checks';
+import { checksOf } from '../stats/checks/checked';
 import { correlatePrepared } from '../stats/correlation/correlate';
 import { PreparedPairs } from '../stats/correlation/prepared';
-import { Method, METHODS } from '../stats/types';
-import { CellRange, guard, optAlpha, optLevel, optMethod, PairedColumns, requirePairs } from './cells';
+import { Method, METHOD_LABELS, METHODS } from '../stats/types';
+import { optAlpha, optLevel, optMethod } from './args';
+import { cellValue, guard } from './errors';
+import { PairedColumns, requirePairs } from './read';
 import { sharedPairs } from './shared-pairs';
-import { pointNaming } from './sheet-rows';
 
 /** The significance level of the checks inside REPORT (the same default as CHECKS and FLAGS). */
 const REPORT_CHECK_ALPHA = 0.05;
@@ -29,12 +32,7 @@ export function checkedPairs(x: CellRange, y: CellRange, alpha: number, xAddress
   requirePairs(pairs, 3);
   const naming = pointNaming(x, xAddress);
   const index = pairs.index;
-  const report = prepared.memo(`checks|${alpha}|${naming.key}`, () => {
-    const r = runChecks(prepared.x, prepared.y, { alpha, pointName: (i) => naming.name(index ? index[i] : i) });
-    const p = r.points; // read only here, for the summaries: recycled with the cache entry
-    prepared.adopt(p.fitted, p.residuals, p.studentized, p.leverage, p.cooksDistance);
-    return r;
-  });
+  const report = checksOf(prepared, alpha, { key: naming.key, name: (i) => naming.name(index ? index[i] : i) });
   return { pairs, prepared, report };
 }
 
@@ -43,11 +41,6 @@ export function flagsText(report: CheckReport): string {
   const untested = report.notTestable > 0 ? `${report.notTestable} check${report.notTestable === 1 ? '' : 's'} not testable` : '';
   if (report.flags.length === 0) return untested ? `no flags (${untested})` : 'no flags';
   return untested ? `${report.flags.join('; ')}; ${untested}` : report.flags.join('; ');
-}
-
-/** A number for a cell, or "" where there is none (a null in a returned array would show as 0). */
-function cell(v: number | null): number | string {
-  return v === null || !Number.isFinite(v) ? '' : v;
 }
 
 // The eight checks: normal shape of x, y and the residuals, a straight line, even spread, outliers, influential
@@ -67,7 +60,7 @@ export function CHECKS(x: any[][], y: any[][], alpha?: number, invocation?: Cust
     const { report } = checkedPairs(x, y, optAlpha(alpha), invocation?.parameterAddresses?.[0]);
     const table: (string | number)[][] = [['Check', 'Test used', 'Statistic', 'p-value', 'Verdict', 'What it means']];
     for (const row of report.checks) {
-      table.push([row.label, row.test, cell(row.statistic), cell(row.pValue), row.verdict, row.meaning]);
+      table.push([row.label, row.test, cellValue(row.statistic), cellValue(row.pValue), row.verdict, row.meaning]);
     }
     return table;
   });
@@ -93,8 +86,6 @@ export function FLAGS(x: any[][], y: any[][], alpha?: number, invocation?: Custo
 function inUnits(v: number): number | string {
   return Number.isFinite(v) ? v : 'too large to show in these units (x and y differ in scale by more than 1e300)';
 }
-
-const SYMBOL_NAMES: Record<Method, string> = { pearson: 'Pearson r', spearman: 'Spearman rho', kendall: 'Kendall tau-b' };
 
 // Rows: pairs used and skipped, the coefficient with its interval and p-value, r², the line, the other coefficients
 // alongside, the flags of the checks (alpha 0.05), a recommended coefficient with its reason, a plain reading.
@@ -133,7 +124,7 @@ export function REPORT(x: any[][], y: any[][], level?: number, method?: string, 
       ['Intercept of the line (y where x = 0)', inUnits(report.line.intercept)],
     ];
     for (const other of METHODS) {
-      if (other !== m) rows.push([`${SYMBOL_NAMES[other]} alongside`, correlatePrepared(prepared, opts(other)).statistic]);
+      if (other !== m) rows.push([`${METHOD_LABELS[other].name} ${METHOD_LABELS[other].symbol} alongside`, correlatePrepared(prepared, opts(other)).statistic]);
     }
     const rec = recommendCoefficient(report, result);
     rows.push(

@@ -8,9 +8,11 @@ import { compareSharedSamples } from '../stats/compare/shared';
 import { ComparisonResult, requireRows } from '../stats/compare/comparison';
 import { assertMatrixFits, correlationMatrix, MATRIX_SHOWS, MatrixShow } from '../stats/compare/matrix';
 import { partialCorrelation } from '../stats/compare/partial';
+import { CellRange, rangeShape, readHeaderRow } from '../sheet/cells';
 import { StatsInputError } from '../stats/types';
-import { CellRange, guard, omitted, optLevel, optMethod, optTail, optionWord, readPairs, requiredNumber } from './cells';
-import { rangeShape, readAlignedVectors, readColumns, readHeaderRow, readWithControls, refuseZeroTail } from './cells-matrix';
+import { optFlag, optLevel, optMethod, optTail, optionWord, requiredNumber } from './args';
+import { guard } from './errors';
+import { readAlignedVectors, readBlock, readPairs, readWithControls } from './read';
 
 /** One row: r1 - r2, lower, upper, p. */
 function comparisonRow(res: ComparisonResult): number[][] {
@@ -121,13 +123,6 @@ export function PARTIAL(x: any[][], y: any[][], controls: any[][], level?: numbe
   });
 }
 
-/** TRUE/FALSE argument; omitted means FALSE. */
-function optFlag(v: unknown, argName: string): boolean {
-  if (omitted(v)) return false;
-  if (typeof v === 'boolean') return v;
-  throw new StatsInputError('bad-option', `${argName} must be TRUE or FALSE`);
-}
-
 /**
  * The correlations between every pair of columns in a block of data, laid out as a table with one row and one column per data column; for many columns at once, with p-values adjusted for testing them all. Each pair uses the rows where both columns hold numbers.
  * @customfunction MATRIX
@@ -148,8 +143,7 @@ export function MATRIX(data: any[][], method?: string, show?: string, headers?: 
     const dataRows = rows - (hasHeaders ? 1 : 0);
     assertMatrixFits(cols, dataRows, m);
     const names = hasHeaders ? readHeaderRow(data, 'data') : undefined;
-    const columns = readColumns(data, 'data', hasHeaders ? 1 : 0);
-    refuseZeroTail(columns, 'data');
+    const columns = readBlock(data, 'data', hasHeaders ? 1 : 0);
     const res = correlationMatrix(columns, m, names);
     const k = res.k;
     const source = what === 'coef' ? res.coef : what === 'pvalue' ? res.pValue : what === 'pvalue_holm' ? res.pHolm : what === 'pvalue_fdr' ? res.pFdr : res.pairs;

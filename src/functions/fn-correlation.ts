@@ -3,9 +3,11 @@
  * of a correlation reported elsewhere. Thin adapter: read cells, call the core, shape the answer.
  */
 import { checkReported, correlatePrepared } from '../stats/correlation/correlate';
-import { CorrelationResult } from '../stats/types';
-import { StatsInputError } from '../stats/types';
-import { guard, optLevel, optMethod, optTail, requirePairs, requiredNumber, CellRange } from './cells';
+import { CellRange } from '../sheet/cells';
+import { CorrelationResult, StatsInputError } from '../stats/types';
+import { optLevel, optMethod, optTail, requiredNumber } from './args';
+import { guard } from './errors';
+import { requirePairs } from './read';
 import { sharedPairs } from './shared-pairs';
 
 function run(x: CellRange, y: CellRange, method: unknown, tail: unknown, level: unknown): CorrelationResult {

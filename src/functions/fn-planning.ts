@@ -3,7 +3,8 @@
  * correlation, for the test of "no correlation". Thin adapter: read the arguments, call the core.
  */
 import { correlationPower, detectableCorrelation, sampleSizeForCorrelation } from '../stats/planning/power';
-import { guard, optAlpha, optNumber, optTail, requiredNumber } from './cells';
+import { optAlpha, optNumber, optTail, requiredNumber } from './args';
+import { guard } from './errors';
 
 /**
  * The chance that a study with n rows finds a significant correlation when the true correlation is r: its power. Useful before collecting data, to see whether the planned number of rows is enough. Assumes the two measures are roughly bell-shaped together; computed from the exact distribution of the correlation.

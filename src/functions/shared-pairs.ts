@@ -5,30 +5,25 @@
  *
  * Safety: entries are found by a hash of the cell contents and then compared value by value with the new read,
  * so an edited cell can never return an old answer (a hash collision costs a recomputation, nothing else).
- * Memory: at most MAX_ENTRIES entries and MAX_VALUES stored numbers; the least recently used go first. An evicted
- * entry's arrays go back to the scratch pool (src/stats/scratch.ts) unless a caller still holds the entry: work
- * that spans several host turns pins it (pinShared) while it runs, and a pinned entry is left to the garbage
- * collector instead.
+ * Memory: at most maxEntries entries and maxValues stored numbers; the least recently used go first. Each entry's
+ * columns are read into a Workspace of the core's (src/stats/workspace.ts): an evicted entry releases it and its
+ * PreparedPairs, unless a caller still holds the entry: work that spans several host turns pins it (pin) while it
+ * runs, and a pinned entry is left to the garbage collector instead.
  */
+import { CellRange, assertSameSize, lastNumberIndex, readVector, vectorLength } from '../sheet/cells';
 import { PreparedPairs } from '../stats/correlation/prepared';
-import { giveBack } from '../stats/internal/scratch';
-import { assertSameSize, CellRange, lastNumberIndex, PairedColumns, readPairsFromVectors, readVector, vectorLength } from './cells';
-
-const MAX_ENTRIES = 16;
-const MAX_VALUES = 8_000_000;
+import { Workspace } from '../stats/workspace';
+import { PairedColumns, pairVectors } from './read';
 
 interface Entry {
-  hash: number;
   xs: Float64Array;
   ys: Float64Array;
   pairs: PairedColumns;
   prepared: PreparedPairs;
+  work: Workspace;
   values: number;
   pins: number;
 }
-
-const entries = new Map<string, Entry>();
-let storedValues = 0;
 
 /** 32-bit FNV-1a over the bit patterns of the values (NaN, the mark of a cell that does not count, is canonical). */
 function hashValues(h: number, v: Float64Array): number {
@@ -45,79 +40,94 @@ function sameValues(a: Float64Array, b: Float64Array): boolean {
   return true;
 }
 
-/** Forgets an entry; its arrays are recycled when nobody holds it. */
-function drop(key: string, e: Entry): void {
-  entries.delete(key);
-  storedValues -= e.values;
-  if (e.pins > 0) return;
-  const { xs, ys, pairs, prepared } = e;
-  giveBack(xs, ys, pairs.x !== xs ? pairs.x : null, pairs.y !== ys ? pairs.y : null, pairs.index);
-  prepared.release();
-}
+/** A content-addressed store of prepared pairs (see the note at the top). */
+export class SharedPairs {
+  private readonly entries = new Map<string, Entry>();
+  private storedValues = 0;
 
-/** Keeps the entry behind `prepared` out of the recycling until the returned function is called. */
-export function pinShared(prepared: PreparedPairs): () => void {
-  for (const e of entries.values()) {
-    if (e.prepared === prepared) {
-      e.pins++;
-      let done = false;
-      return () => {
-        if (!done) e.pins--;
-        done = true;
-      };
+  constructor(
+    private readonly maxEntries = 16,
+    private readonly maxValues = 8_000_000,
+  ) {}
+
+  /** Reads x and y and returns their complete pairs and the shared prepared columns. */
+  get(xRange: CellRange, yRange: CellRange, xName = 'x', yName = 'y'): { pairs: PairedColumns; prepared: PreparedPairs } {
+    const total = vectorLength(xRange, xName);
+    const ny = vectorLength(yRange, yName);
+    assertSameSize(total, ny, xName, yName);
+    // Rows after x's last number can never pair, whatever y holds there. That row is found first by a scan that
+    // copies nothing, and neither column is read past it: on a whole-column reference (1,048,576 rows, a thousand
+    // filled) reading, the cost that dominates, drops to the filled rows plus one pass of type tests.
+    const last = lastNumberIndex(xRange, xName);
+    const work = new Workspace();
+    const xs = readVector(xRange, xName, { limit: last + 1, alloc: work.float64 });
+    const ys = readVector(yRange, yName, { limit: last + 1, alloc: work.float64 });
+    const hash = hashValues(hashValues(0x811c9dc5, xs), ys);
+    const key = `${xName}|${yName}|${total}|${xs.length}|${hash}`;
+    const hit = this.entries.get(key);
+    if (hit && sameValues(hit.xs, xs) && sameValues(hit.ys, ys)) {
+      this.entries.delete(key); // re-insert: most recently used last
+      this.entries.set(key, hit);
+      work.release(); // this call's reads are not needed: the entry holds the same values
+      return hit;
     }
-  }
-  return () => undefined;
-}
-
-/** Reads x and y and returns their complete pairs and the shared prepared columns. */
-export function sharedPairs(
-  xRange: CellRange,
-  yRange: CellRange,
-  xName = 'x',
-  yName = 'y',
-): { pairs: PairedColumns; prepared: PreparedPairs } {
-  const total = vectorLength(xRange, xName);
-  const ny = vectorLength(yRange, yName);
-  assertSameSize(total, ny, xName, yName);
-  // Rows after x's last number can never pair, whatever y holds there. That row is found first by a scan that
-  // copies nothing, and neither column is read past it: on a whole-column reference (1,048,576 rows, a thousand
-  // filled) reading, the cost that dominates, drops to the filled rows plus one pass of type tests.
-  const last = lastNumberIndex(xRange, xName);
-  const xs = readVector(xRange, xName, last + 1);
-  const ys = readVector(yRange, yName, last + 1);
-  const hash = hashValues(hashValues(0x811c9dc5, xs), ys);
-  const key = `${xName}|${yName}|${total}|${xs.length}|${hash}`;
-  const hit = entries.get(key);
-  if (hit && sameValues(hit.xs, xs) && sameValues(hit.ys, ys)) {
-    entries.delete(key); // re-insert: most recently used last
-    entries.set(key, hit);
-    giveBack(xs, ys); // this call's reads are not needed: the entry holds the same values
-    return hit;
-  }
-  const pairs = readPairsFromVectors(xs, ys, xName, yName, total);
-  const prepared = new PreparedPairs(pairs.x, pairs.y);
-  const values = 2 * xs.length + 3 * pairs.x.length;
-  if (hit) drop(key, hit);
-  if (values <= MAX_VALUES) {
-    while (entries.size >= MAX_ENTRIES || storedValues + values > MAX_VALUES) {
-      const oldest = entries.keys().next();
-      if (oldest.done) break;
-      drop(oldest.value, entries.get(oldest.value)!);
+    const pairs = pairVectors(xs, ys, xName, yName, total, work.float64);
+    const prepared = new PreparedPairs(pairs.x, pairs.y);
+    const values = 2 * xs.length + 3 * pairs.x.length;
+    if (hit) this.drop(key, hit);
+    if (values <= this.maxValues) {
+      while (this.entries.size >= this.maxEntries || this.storedValues + values > this.maxValues) {
+        const oldest = this.entries.keys().next();
+        if (oldest.done) break;
+        this.drop(oldest.value, this.entries.get(oldest.value)!);
+      }
+      this.entries.set(key, { xs, ys, pairs, prepared, work, values, pins: 0 });
+      this.storedValues += values;
     }
-    entries.set(key, { hash, xs, ys, pairs, prepared, values, pins: 0 });
-    storedValues += values;
+    return { pairs, prepared };
   }
-  return { pairs, prepared };
+
+  /** Keeps the entry behind `prepared` out of the recycling until the returned function is called. */
+  pin(prepared: PreparedPairs): () => void {
+    for (const e of this.entries.values()) {
+      if (e.prepared === prepared) {
+        e.pins++;
+        let done = false;
+        return () => {
+          if (!done) e.pins--;
+          done = true;
+        };
+      }
+    }
+    return () => undefined;
+  }
+
+  /** How many entries and values are held (tests and the memory check). */
+  stats(): { entries: number; values: number } {
+    return { entries: this.entries.size, values: this.storedValues };
+  }
+
+  /** Forgets every entry (tests). */
+  clear(): void {
+    this.entries.clear();
+    this.storedValues = 0;
+  }
+
+  /** Forgets an entry; its arrays are recycled when nobody holds it. */
+  private drop(key: string, e: Entry): void {
+    this.entries.delete(key);
+    this.storedValues -= e.values;
+    if (e.pins > 0) return;
+    e.work.release();
+    e.prepared.release();
+  }
 }
 
-/** For tests and the memory check: how many entries and values are held. */
-export function sharedPairsStats(): { entries: number; values: number } {
-  return { entries: entries.size, values: storedValues };
-}
+/** The one store of the functions bundle, shared by every cell function of the workbook. */
+const store = new SharedPairs();
 
-/** Empties the store (tests). */
-export function clearSharedPairs(): void {
-  entries.clear();
-  storedValues = 0;
-}
+export const sharedPairs = (x: CellRange, y: CellRange, xName?: string, yName?: string): { pairs: PairedColumns; prepared: PreparedPairs } =>
+  store.get(x, y, xName, yName);
+export const pinShared = (prepared: PreparedPairs): (() => void) => store.pin(prepared);
+export const sharedPairsStats = (): { entries: number; values: number } => store.stats();
+export const clearSharedPairs = (): void => store.clear();

@@ -1,4 +1,11 @@
-/** Shared result and option types of the statistics core. Plain data: no host, DOM or cell types. */
+/**
+ * Shared result and option types of the statistics core, and the one table of words for each coefficient. Plain
+ * data: no host, DOM or cell types.
+ *
+ * Every test of a correlation, or of a difference between two, returns a TestResult: what was tested (`method`,
+ * typed, its words in METHOD_LABELS), the estimate, its p-value and tail, its two-sided interval, the test
+ * statistic behind the p-value, how that p-value was obtained (`pMethod`) and the rows behind it.
+ */
 
 /** Which alternative a p-value refers to: "both" (two-sided), "positive" (rho > 0) or "negative" (rho < 0). */
 export type Tail = 'both' | 'positive' | 'negative';
@@ -9,6 +16,27 @@ export type Method = 'pearson' | 'spearman' | 'kendall';
 /** The coefficient actually reported; Pearson on two-valued columns is named point-biserial or phi. */
 export type CoefficientName = 'Pearson' | 'point-biserial' | 'phi' | 'Spearman' | 'Kendall tau-b';
 
+export const TAILS: readonly Tail[] = ['both', 'positive', 'negative'];
+export const METHODS: readonly Method[] = ['pearson', 'spearman', 'kendall'];
+
+/** The words for each method, used by every layer (cell answers, the report, the panel, written formulas). */
+export interface MethodLabel {
+  /** The coefficient's name: "Pearson", "Spearman", "Kendall". */
+  name: string;
+  /** Its symbol in plain text, as a cell shows it: "r", "rho", "tau-b". */
+  symbol: string;
+  /** Its symbol in typeset text, as the panel shows it: "r", "ρ", "τ-b". */
+  glyph: string;
+  /** What it measures, in two or three words. */
+  gist: string;
+}
+
+export const METHOD_LABELS: Record<Method, MethodLabel> = {
+  pearson: { name: 'Pearson', symbol: 'r', glyph: 'r', gist: 'straight line' },
+  spearman: { name: 'Spearman', symbol: 'rho', glyph: 'ρ', gist: 'rank order' },
+  kendall: { name: 'Kendall', symbol: 'tau-b', glyph: 'τ-b', gist: 'rank agreement' },
+};
+
 export interface Interval {
   lower: number;
   upper: number;
@@ -18,21 +46,32 @@ export interface Interval {
   method: string;
 }
 
-/** The result of one correlation test. */
-export interface CorrelationResult {
+/** The statistic behind a p-value. */
+export interface TestStatistic {
+  name: 't' | 'z' | 'S';
+  value: number;
+  df?: number;
+}
+
+/** What every test of a correlation (or of the difference of two) returns; see the note at the top. */
+export interface TestResult {
   method: Method;
-  name: CoefficientName;
-  /** The coefficient, clipped to [-1, 1]. */
+  /** The estimate: a coefficient clipped to [-1, 1], or a difference of two. */
   statistic: number;
   pValue: number;
   tail: Tail;
+  /** Two-sided interval at the requested level, whatever the tail. */
   interval: Interval;
-  /** Complete pairs used. */
-  n: number;
-  /** The test statistic behind the p-value. */
-  test: { name: 't' | 'z' | 'S'; value: number; df?: number };
-  /** How the p-value was obtained, e.g. "t test, df = n - 2", "exact distribution of S". */
+  test: TestStatistic;
+  /** How the p-value was obtained, e.g. "t test, df = n - 2", "exact null distribution of S". */
   pMethod: string;
+  /** Complete rows behind the result (for two independent groups, both groups together). */
+  n: number;
+}
+
+/** The result of one correlation test. */
+export interface CorrelationResult extends TestResult {
+  name: CoefficientName;
 }
 
 /** Error codes of the core's input validation; the cell layer maps them to host errors. */
@@ -53,6 +92,3 @@ export class StatsInputError extends Error {
     this.code = code;
   }
 }
-
-export const TAILS: readonly Tail[] = ['both', 'positive', 'negative'];
-export const METHODS: readonly Method[] = ['pearson', 'spearman', 'kendall'];

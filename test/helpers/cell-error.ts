@@ -1,4 +1,4 @@
-import { CellError } from '../../src/functions/cells';
+import { CellError } from '../../src/functions/errors';
 
 /** Runs a cell function that must fail, and returns its CellError (thrown when no CustomFunctions host exists). */
 export function cellError(fn: () => unknown): CellError {

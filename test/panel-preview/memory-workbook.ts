@@ -3,7 +3,7 @@
  * cell values, named tables with a header row, change notifications, and a record of the rows selected and the
  * cells written.
  */
-import { columnLetters, formatBlock, parseAddress } from '../../taskpane/address';
+import { columnLetters, formatBlock, parseAddress } from '../../src/sheet/a1';
 import type { ColumnSource, NumericColumnRead, RangeRead, TableInfo, Workbook } from '../../taskpane/workbook';
 
 export interface MemoryTable {

@@ -2,6 +2,7 @@ import { borrowF64, giveBack } from '../internal/scratch';
 import { powerOfTwoScale } from '../correlation/comoments';
 import { normalQuantile } from '../distributions';
 import { fitLine, LineFit } from '../correlation/regression';
+import { validAlpha } from '../options';
 import { StatsInputError } from '../types';
 import { breuschPagan } from './breusch-pagan';
 import { CheckKey, CheckReport, CheckRow, PointDiagnostics } from './check-report';
@@ -163,7 +164,7 @@ export function runChecks(xIn: ArrayLike<number>, yIn: ArrayLike<number>, opts: 
   const n = x.length;
   const { alpha } = opts;
   if (y.length !== n) throw new StatsInputError('unequal-length', 'x and y must hold the same number of values');
-  if (!(alpha > 0 && alpha < 1)) throw new StatsInputError('out-of-range', `alpha must be between 0 and 1, e.g. 0.05 (got ${alpha})`);
+  validAlpha(alpha);
   if (n < 3) throw new StatsInputError('too-few', `only ${n} usable pair${n === 1 ? '' : 's'}: the checks need at least 3`);
   for (let i = 0; i < n; i++) {
     if (!Number.isFinite(x[i]) || !Number.isFinite(y[i])) {

@@ -5,7 +5,9 @@
 import { fisherInterval } from '../correlation/fisher';
 import { coMoments } from '../correlation/comoments';
 import { assertVaries, pearsonFromMoments } from '../correlation/pearson';
-import { Interval, StatsInputError, Tail } from '../types';
+import { validTestOptions } from '../options';
+import { StatsInputError, Tail, TestResult } from '../types';
+import type { Interval } from '../types';
 
 /** Which study design a comparison is for. */
 export type ComparisonDesign =
@@ -16,22 +18,16 @@ export type ComparisonDesign =
   /** r(j, k) against r(h, m) on the same rows: no variable in common. */
   | 'separate';
 
-/** The result of comparing two correlations r1 and r2; the difference and the tail refer to r1 - r2. */
-export interface ComparisonResult {
+/**
+ * The result of comparing two correlations r1 and r2 (a TestResult): `statistic` is r1 - r2, the tail refers to
+ * r1 - r2 ("positive" tests r1 > r2), the interval is Zou's two-sided interval for r1 - r2, `pMethod` names the
+ * test (e.g. "Fisher (1925) z test for independent correlations"), `method` the coefficient compared and `n` the
+ * rows behind both (n1 + n2 for independent groups, the shared rows otherwise).
+ */
+export interface ComparisonResult extends TestResult {
   design: ComparisonDesign;
-  /** What ran, e.g. "Fisher (1925) z test; Zou (2007) interval". */
-  method: string;
   r1: number;
   r2: number;
-  /** r1 - r2. */
-  statistic: number;
-  pValue: number;
-  /** "positive" tests r1 > r2, "negative" r1 < r2, "both" r1 != r2. */
-  tail: Tail;
-  /** Two-sided interval for r1 - r2 at `level`, whatever the tail (as for a single correlation). */
-  interval: Interval;
-  /** The test statistic behind the p-value. */
-  test: { name: 'z' | 't'; value: number; df?: number };
   /** Rows behind r1 and r2 (equal for the same-rows designs). */
   n1: number;
   n2: number;
@@ -73,11 +69,14 @@ export function assertSampleSize(n: number, name: string, min = MIN_COMPARISON_N
   }
 }
 
-/** Checks the confidence level lies strictly between 0 and 1 (the tail is typed, and the cells validate its word). */
+/** Checks the level and tail (the core's one validator, src/stats/options.ts). */
 export function assertComparisonOptions(opts: ComparisonOptions): void {
-  if (!(opts.level > 0 && opts.level < 1)) {
-    throw new StatsInputError('out-of-range', `level must be between 0 and 1, e.g. 0.95 (got ${opts.level})`);
-  }
+  validTestOptions(opts);
+}
+
+/** "Fisher (1925) z test ...; Zou (2007) ...": what ran, in one line. */
+export function describeComparison(r: ComparisonResult): string {
+  return `${r.pMethod}; ${r.interval.method}`;
 }
 
 /** Two-sided Fisher-z interval for one Pearson r from n rows: tanh(atanh r -/+ q / sqrt(n - 3)). */

@@ -40,7 +40,9 @@ export function compareIndependent(
   const i2 = pearsonFisherInterval(r2, n2, opts.level);
   return {
     design: 'independent',
-    method: "Fisher (1925) z test for independent correlations; Zou (2007) interval",
+    method: 'pearson',
+    pMethod: 'Fisher (1925) z test for independent correlations',
+    n: n1 + n2,
     r1,
     r2,
     statistic: r1 - r2,

@@ -2,22 +2,16 @@ import { fisherInterval, pFromT, tFromR } from '../correlation/fisher';
 import { powerOfTwoScale } from '../correlation/comoments';
 import { clipUnit } from '../correlation/pearson';
 import { euclideanNorm, orthonormalBasis, residualsOn, centred } from './residualize';
-import { Interval, StatsInputError, Tail } from '../types';
+import { validTestOptions } from '../options';
+import { StatsInputError, Tail, TestResult } from '../types';
 
-/** The result of a partial correlation, saying what ran. */
-export interface PartialResult {
-  method: string;
-  /** The partial correlation of x and y given the controls, clipped to [-1, 1]. */
-  statistic: number;
-  pValue: number;
-  tail: Tail;
-  interval: Interval;
-  /** Complete rows used. */
-  n: number;
+/** The result of a partial correlation (a TestResult: `statistic` is the partial r of x and y given the
+ * controls, clipped to [-1, 1]; `method` is Pearson, the coefficient computed on the residuals). */
+export interface PartialResult extends TestResult {
   /** Number of control columns. */
   controls: number;
-  test: { name: 't'; value: number; df: number };
-  pMethod: string;
+  /** What was held fixed, in words. */
+  description: string;
 }
 
 export interface PartialOptions {
@@ -55,9 +49,7 @@ export function partialCorrelation(
     throw new StatsInputError('unequal-length', 'x, y and every control column must hold the same number of rows');
   }
   if (k < 1) throw new StatsInputError('too-few', 'give at least one control column');
-  if (!(opts.level > 0 && opts.level < 1)) {
-    throw new StatsInputError('out-of-range', `level must be between 0 and 1, e.g. 0.95 (got ${opts.level})`);
-  }
+  validTestOptions(opts);
   if (n < k + 4) {
     throw new StatsInputError(
       'too-few',
@@ -75,7 +67,8 @@ export function partialCorrelation(
   const df = n - 2 - k;
   const t = tFromR(r, df);
   return {
-    method: `partial Pearson correlation controlling for ${k} column${k === 1 ? '' : 's'}`,
+    method: 'pearson',
+    description: `partial Pearson correlation controlling for ${k} column${k === 1 ? '' : 's'}`,
     statistic: r,
     pValue: pFromT(t, df, opts.tail),
     tail: opts.tail,

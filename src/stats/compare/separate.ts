@@ -80,7 +80,9 @@ export function compareSeparate(c6: SeparatePairsCorrelations, opts: ComparisonO
   const level = opts.level;
   return {
     design: 'separate',
-    method: "Steiger's (1980) Z with pooled r; Zou (2007) interval",
+    method: 'pearson',
+    pMethod: "Steiger's (1980) Z with pooled r",
+    n,
     r1: rjk,
     r2: rhm,
     statistic: rjk - rhm,

@@ -76,7 +76,9 @@ export function compareShared(c3: SharedVariableCorrelations, opts: ComparisonOp
   const level = opts.level;
   return {
     design: 'shared',
-    method: "Williams' t (Steiger 1980, eq. 7); Zou (2007) interval",
+    method: 'pearson',
+    pMethod: "Williams' t (Steiger 1980, eq. 7)",
+    n,
     r1: rjk,
     r2: rjh,
     statistic: rjk - rjh,

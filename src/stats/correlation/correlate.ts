@@ -3,7 +3,8 @@ import { exactDiscordantTails, KendallCounts, tauB, varianceOfS } from './kendal
 import { assertVaries, clipUnit, pearsonFromMoments } from './pearson';
 import { PreparedPairs } from './prepared';
 import { fisherInterval, pFromT, pFromZ, tFromR } from './fisher';
-import { CoefficientName, CorrelationResult, Interval, Method, StatsInputError, Tail } from '../types';
+import { validTestOptions } from '../options';
+import { CoefficientName, CorrelationResult, Interval, Method, StatsInputError, Tail, TestResult, TestStatistic } from '../types';
 
 export interface CorrelateOptions {
   method: Method;
@@ -51,7 +52,7 @@ export function correlationInterval(method: Method, r: number, n: number, level:
 }
 
 /** Kendall's p-value: exact null distribution without ties for n < 50, else normal approximation of S. */
-export function kendallPValue(c: KendallCounts, tail: Tail): { p: number; test: CorrelationResult['test']; pMethod: string } {
+export function kendallPValue(c: KendallCounts, tail: Tail): { p: number; test: TestStatistic; pMethod: string } {
   const noTies = c.tiedX === 0 && c.tiedY === 0;
   if (noTies && c.n < 50) {
     const { lower, upper } = exactDiscordantTails(c.n, c.discordant);
@@ -87,8 +88,8 @@ export function correlate(x: ArrayLike<number>, y: ArrayLike<number>, opts: Corr
 /** As correlate, on prepared columns whose ranks, counts and moments are shared with other callers. */
 export function correlatePrepared(prep: PreparedPairs, opts: CorrelateOptions): CorrelationResult {
   const { x, y, n } = prep;
+  const { method, tail, level } = validTestOptions(opts);
   if (n < 3) throw new StatsInputError('too-few', `only ${n} usable pairs: at least 3 are needed`);
-  const { method, tail, level } = opts;
   if (method === 'kendall') {
     assertVaries(prep.moments);
     const c = prep.kendall;
@@ -124,15 +125,8 @@ export function correlatePrepared(prep: PreparedPairs, opts: CorrelateOptions): 
   };
 }
 
-/** Interval and p-value for a correlation reported elsewhere, from r and n alone. */
-export interface ReportedResult {
-  interval: Interval;
-  pValue: number;
-  tail: Tail;
-  method: Method;
-  test: CorrelationResult['test'];
-  pMethod: string;
-}
+/** Interval and p-value for a correlation reported elsewhere, from r and n alone (`statistic` is that r). */
+export type ReportedResult = TestResult;
 
 /**
  * Checks a reported correlation from r and n only: the same interval and test the raw data would give, with
@@ -140,19 +134,19 @@ export interface ReportedResult {
  * @throws StatsInputError when |r| >= 1 or n < 4 (n < 5 for Kendall, whose interval needs n - 4 > 0).
  */
 export function checkReported(r: number, n: number, opts: CorrelateOptions): ReportedResult {
-  const { method, tail, level } = opts;
+  const { method, tail, level } = validTestOptions(opts);
   if (!(Math.abs(r) < 1)) throw new StatsInputError('out-of-range', `r must lie strictly between -1 and 1 (got ${r})`);
   if (!(n >= 4) || !Number.isInteger(n)) throw new StatsInputError('out-of-range', `n must be a whole number of at least 4 (got ${n})`);
   if (method === 'kendall' && n < 5) throw new StatsInputError('out-of-range', 'n must be at least 5 for Kendall\'s interval');
   const interval = correlationInterval(method, r, n, level);
   if (method === 'kendall') {
     const z = (3 * r * Math.sqrt(n * (n - 1))) / Math.sqrt(2 * (2 * n + 5));
-    return { interval, pValue: pFromZ(z, tail), tail, method, test: { name: 'z', value: z }, pMethod: 'normal approximation, no ties assumed' };
+    return { method, statistic: r, n, interval, pValue: pFromZ(z, tail), tail, test: { name: 'z', value: z }, pMethod: 'normal approximation, no ties assumed' };
   }
   const df = n - 2;
   const t = tFromR(r, df);
   return {
-    interval, pValue: pFromT(t, df, tail), tail, method, test: { name: 't', value: t, df },
+    method, statistic: r, n, interval, pValue: pFromT(t, df, tail), tail, test: { name: 't', value: t, df },
     pMethod: method === 'spearman' ? 't approximation, df = n - 2' : 't test, df = n - 2',
   };
 }

@@ -18,6 +18,7 @@
  */
 import { correlationTail } from '../distributions/r-distribution';
 import { normalCdf, studentTQuantile } from '../distributions';
+import { validAlpha, validPower, validTail } from '../options';
 import { StatsInputError, Tail } from '../types';
 
 export type PlanningMethod = 'exact' | 'fisher-z';
@@ -40,7 +41,9 @@ export interface PlanningResult {
   power: number;
   alpha: number;
   tail: Tail;
-  method: string;
+  /** Which computation ran, typed; `basis` says it in words. */
+  method: PlanningMethod;
+  basis: string;
 }
 
 const METHOD_TEXT: Record<PlanningMethod, string> = {
@@ -54,9 +57,8 @@ export const MAX_PLANNING_N = 1e9;
 export const MIN_PLANNING_N = 4;
 
 function checkOptions(opts: PlanningOptions): PlanningMethod {
-  if (!(opts.alpha > 0 && opts.alpha < 1)) {
-    throw new StatsInputError('out-of-range', `alpha must be between 0 and 1, e.g. 0.05 (got ${opts.alpha})`);
-  }
+  validAlpha(opts.alpha);
+  validTail(opts.tail);
   return opts.method ?? 'exact';
 }
 
@@ -71,10 +73,6 @@ function checkN(n: number): void {
       `n must be a whole number of rows from ${MIN_PLANNING_N} to ${MAX_PLANNING_N.toLocaleString('en-US')} (got ${n})`,
     );
   }
-}
-
-function checkPowerTarget(power: number): void {
-  if (!(power > 0 && power < 1)) throw new StatsInputError('out-of-range', `power must be between 0 and 1, e.g. 0.8 (got ${power})`);
 }
 
 /**
@@ -120,7 +118,7 @@ export function correlationPower(rho: number, n: number, opts: PlanningOptions):
   const method = checkOptions(opts);
   checkRho(rho);
   checkN(n);
-  return { rho, n, power: powerAt(rho, n, opts.alpha, opts.tail, method), alpha: opts.alpha, tail: opts.tail, method: METHOD_TEXT[method] };
+  return { rho, n, power: powerAt(rho, n, opts.alpha, opts.tail, method), alpha: opts.alpha, tail: opts.tail, method, basis: METHOD_TEXT[method] };
 }
 
 /** rho folded to the side the tail tests; throws when that side cannot be reached. */
@@ -142,7 +140,7 @@ function effectiveRho(rho: number, tail: Tail): number {
 export function sampleSizeFisherZ(rho: number, power: number, opts: PlanningOptions): number {
   checkOptions(opts);
   checkRho(rho);
-  checkPowerTarget(power);
+  validPower(power);
   const r = effectiveRho(rho, opts.tail);
   const f = (n: number): number => powerAt(r, n, opts.alpha, opts.tail, 'fisher-z') - power;
   if (f(MIN_PLANNING_N) >= 0) return MIN_PLANNING_N;
@@ -171,10 +169,10 @@ function tooManyRows(rho: number): StatsInputError {
 export function sampleSizeForCorrelation(rho: number, power: number, opts: PlanningOptions): PlanningResult {
   const method = checkOptions(opts);
   checkRho(rho);
-  checkPowerTarget(power);
+  validPower(power);
   const r = effectiveRho(rho, opts.tail);
   const pw = (n: number): number => powerAt(r, n, opts.alpha, opts.tail, method);
-  const done = (n: number, p: number): PlanningResult => ({ rho, n, power: p, alpha: opts.alpha, tail: opts.tail, method: METHOD_TEXT[method] });
+  const done = (n: number, p: number): PlanningResult => ({ rho, n, power: p, alpha: opts.alpha, tail: opts.tail, method, basis: METHOD_TEXT[method] });
   const p4 = pw(MIN_PLANNING_N);
   if (p4 >= power) return done(MIN_PLANNING_N, p4);
   const start = Math.min(MAX_PLANNING_N, Math.max(MIN_PLANNING_N + 1, Math.ceil(sampleSizeFisherZ(rho, power, opts))));
@@ -230,10 +228,10 @@ export function sampleSizeForCorrelation(rho: number, power: number, opts: Plann
 export function detectableCorrelation(n: number, power: number, opts: PlanningOptions): PlanningResult {
   const method = checkOptions(opts);
   checkN(n);
-  checkPowerTarget(power);
+  validPower(power);
   const sign = opts.tail === 'negative' ? -1 : 1;
   const pw = (z: number): number => powerAt(sign * Math.tanh(z), n, opts.alpha, opts.tail, method);
-  const done = (rho: number, p: number): PlanningResult => ({ rho, n, power: p, alpha: opts.alpha, tail: opts.tail, method: METHOD_TEXT[method] });
+  const done = (rho: number, p: number): PlanningResult => ({ rho, n, power: p, alpha: opts.alpha, tail: opts.tail, method, basis: METHOD_TEXT[method] });
   const p0 = pw(0);
   if (p0 >= power) return done(0, p0);
   // Bracket in z = atanh(rho): power rises with |rho|; z = 20 is rho = 1 - 8e-18, i.e. 1 in double precision.

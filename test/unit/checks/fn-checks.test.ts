@@ -6,7 +6,6 @@
  */
 import { CHECKS, FLAGS, REPORT } from '../../../src/functions/fn-checks';
 import { clearSharedPairs } from '../../../src/functions/shared-pairs';
-import { columnName, pointNaming, rangeStart } from '../../../src/functions/sheet-rows';
 import { expectRel } from '../../helpers/close';
 import { R } from './fixtures';
 import { cellError } from '../../helpers/cell-error';
@@ -104,17 +103,6 @@ describe('naming points', () => {
 
   test('data laid out in a row: sheet columns', () => {
     expect(FLAGS(row(set(3).x), row(set(3).y), NONE, at("'North branch'!B3:L3", "'North branch'!B4:L4"))[0][0]).toMatch(/outlier at column D/);
-  });
-
-  test('address parsing', () => {
-    expect(rangeStart('Sheet1!B2:B40')).toEqual({ row: 2, column: 2 });
-    expect(rangeStart("'It''s here!'!$AB$10:$AB$99")).toEqual({ row: 10, column: 28 });
-    expect(rangeStart('[Book1]Sheet1!C:C')).toEqual({ row: 1, column: 3 });
-    expect(rangeStart('D7')).toEqual({ row: 7, column: 4 });
-    expect(rangeStart(undefined)).toBeNull();
-    expect(rangeStart('#REF!')).toBeNull();
-    expect(columnName(16384)).toBe('XFD');
-    expect(pointNaming([[1], [2]], 'nonsense').name(0)).toBe('position 1');
   });
 });
 

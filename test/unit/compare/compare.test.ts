@@ -5,7 +5,7 @@
 import { compareIndependent, compareIndependentSamples } from '../../../src/stats/compare/independent';
 import { compareShared, compareSharedSamples } from '../../../src/stats/compare/shared';
 import { compareSeparate, compareSeparateSamples } from '../../../src/stats/compare/separate';
-import { ComparisonResult } from '../../../src/stats/compare/comparison';
+import { ComparisonResult, describeComparison } from '../../../src/stats/compare/comparison';
 import { StatsInputError, Tail } from '../../../src/stats/types';
 import { expectRel } from '../../helpers/close';
 import { expectAbs, R, RTails } from './fixtures';
@@ -43,7 +43,7 @@ describe('Fisher (1925) z test for independent groups, Zou (2007) interval', () 
     expectAbs(res.interval.lower, -0.087, 0.0005);
     expectAbs(res.interval.upper, 0.359, 0.0005);
     expect(res.design).toBe('independent');
-    expect(res.method).toMatch(/Fisher \(1925\).*Zou \(2007\)/);
+    expect(describeComparison(res)).toMatch(/Fisher \(1925\).*Zou \(2007\)/);
   });
 
   test.each([['fisher_a'], ['fisher_b'], ['zou_independent'], ['zou_independent_90']] as const)(

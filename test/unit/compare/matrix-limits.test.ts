@@ -6,7 +6,7 @@
  * figures were measured).
  */
 import { MATRIX } from '../../../src/functions/fn-compare';
-import { CellError } from '../../../src/functions/cells';
+import { CellError } from '../../../src/functions/errors';
 import { assertMatrixFits, correlationMatrix, MATRIX_LIMITS, predictedMatrixMs } from '../../../src/stats/compare/matrix';
 import { StatsInputError } from '../../../src/stats/types';
 

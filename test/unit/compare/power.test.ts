@@ -30,7 +30,7 @@ describe('exact power (mpmath integration of Hotelling 1953)', () => {
   test.each(EXACT.power.map((c) => [c.r, c.n, c.tail, c.power] as const))('r = %p, n = %p, tail %s: power %p', (r, n, tail, power) => {
     const res = correlationPower(r, n, { alpha, tail });
     expectRel(res.power, power, 1e-6);
-    expect(res.method).toMatch(/Hotelling 1953/);
+    expect(res.basis).toMatch(/Hotelling 1953/);
   });
 
   test('robust for n up to 1e6: r = .003, n = 1,000,000 (mpmath)', () => {

@@ -7,7 +7,7 @@ import { CHECKS } from '../../../src/functions/fn-checks';
 import { COEF, PVALUE } from '../../../src/functions/fn-correlation';
 import { clearSharedPairs, pinShared, sharedPairs, sharedPairsStats } from '../../../src/functions/shared-pairs';
 import { correlate } from '../../../src/stats/correlation/correlate';
-import { clearScratch, scratchStats } from '../../../src/stats/internal/scratch';
+import { Workspace } from '../../../src/stats/workspace';
 import { Method } from '../../../src/stats/types';
 import { expectRel } from '../../helpers/close';
 
@@ -61,7 +61,7 @@ test('memory stays bounded over many different inputs', () => {
   expect(s.values).toBeLessThanOrEqual(8_000_000);
 });
 
-describe('recycled arrays (src/stats/scratch.ts) never leak into another answer', () => {
+describe('recycled arrays (src/stats/internal/scratch.ts, lent through src/stats/workspace.ts) never leak into another answer', () => {
   // Inputs big enough for the scratch pool (>= 16,384 rows), and more of them than the cache holds, so entries
   // are evicted and their arrays reused by later reads, sorts and ranks. Each answer must equal the core's answer
   // on plain, freshly allocated copies of the same data, whatever was computed in between.
@@ -84,14 +84,14 @@ describe('recycled arrays (src/stats/scratch.ts) never leak into another answer'
         for (const m of methods) expect(COEF(col(x), col(y), m)).toBe(fresh(k, m));
       }
     }
-    expect(scratchStats().bytes).toBeLessThanOrEqual(96 * 1024 * 1024);
+    expect(Workspace.poolStats().bytes).toBeLessThanOrEqual(96 * 1024 * 1024);
   });
 
   test('CHECKS answers past the cache capacity equal answers computed with an empty cache and pool', () => {
     const first = new Map<number, unknown>();
     for (let k = 0; k < 20; k++) {
       clearSharedPairs();
-      clearScratch();
+      Workspace.clearPool();
       const { x, y } = data(k);
       first.set(k, CHECKS(col(x), col(y)));
     }
@@ -109,7 +109,7 @@ describe('recycled arrays (src/stats/scratch.ts) never leak into another answer'
     const big = (k: number) => col(Array.from({ length: M }, (_, i) => ((i * 7919 + k) % 100003) / 7));
     const run = (pin: boolean) => {
       clearSharedPairs();
-      clearScratch();
+      Workspace.clearPool();
       const a = sharedPairs(big(1), big(2));
       const unpin = pin ? pinShared(a.prepared) : () => undefined;
       const before = a.prepared.x[12345];

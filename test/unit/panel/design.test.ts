@@ -3,7 +3,7 @@
  * 87:245-251, and Zou (2007), Psychological Methods 12:399-413: independent groups; dependent correlations with
  * one variable in common ("overlapping"); dependent correlations with no variable in common ("non-overlapping").
  */
-import { parseAddress, CellBlock } from '../../../taskpane/address';
+import { parseAddress, CellBlock } from '../../../src/sheet/a1';
 import { designProblem, detectDesign } from '../../../taskpane/design';
 
 const b = (a: string): CellBlock => parseAddress(a)![0];

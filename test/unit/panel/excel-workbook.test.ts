@@ -13,7 +13,7 @@ import { OfficeMockObject } from 'office-addin-mock';
 jest.mock('office-addin-manifest', () => ({
   OfficeApp: { Excel: 'excel', OneNote: 'onenote', Outlook: 'outlook', PowerPoint: 'powerpoint', Project: 'project', Word: 'word' },
 }));
-import { columnLetters, formatBlock, parseAddress } from '../../../taskpane/address';
+import { columnLetters, formatBlock, parseAddress } from '../../../src/sheet/a1';
 import { ExcelWorkbook, sanitizeSheetName, touches, uniqueSheetName } from '../../../taskpane/excel-workbook';
 
 interface TableDef {

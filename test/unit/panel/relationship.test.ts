@@ -1,16 +1,18 @@
 /**
- * The panel's relationship computation against R 4.2.2 (fixture and script: test/fixtures/panel/, versions in the
- * fixture): Q-Q plotting positions (stats::ppoints), the Q-Q reference line (stats::qqline's quartile rule),
- * and Anscombe's (1973) set 3 (cor.test; the outlier is the point with the largest |rstudent|).
+ * The panel's relationship computation against R 4.2.2 (fixtures and scripts: test/fixtures/panel/ and
+ * test/fixtures/plots/, versions in the fixtures): the Q-Q abscissae and reference line of the drawn view
+ * (stats::qqnorm, stats::qqline's quartile rule), and Anscombe's (1973) set 3 (cor.test; the outlier is the
+ * point with the largest |rstudent|).
  */
 import * as fs from 'fs';
 import * as path from 'path';
-import { analyseRelationship, FLAG_OUTLIER, isFailure, plottingPosition, RelationshipView, SMOOTH_LIMIT } from '../../../taskpane/relationship';
+import { analyseRelationship, FLAG_OUTLIER, isFailure, RedrawMemory, RelationshipView, SMOOTH_LIMIT } from '../../../taskpane/relationship';
 import { drawSample } from '../../../taskpane/draw-sample';
 import { lowess } from '../../../src/stats/plots/lowess';
 import type { PairedRows } from '../../../taskpane/pairs';
 
 const R = JSON.parse(fs.readFileSync(path.resolve(__dirname, '../../fixtures/panel/panel-r.json'), 'utf8'));
+const QQ = JSON.parse(fs.readFileSync(path.resolve(__dirname, '../../fixtures/plots/qq-r.json'), 'utf8')).qq;
 
 const rel = (a: number, b: number): number => Math.abs(a - b) / Math.max(1e-300, Math.abs(b));
 
@@ -30,16 +32,11 @@ function pairs(x: number[], y: number[], firstRow = 2): PairedRows {
 const opts = { method: 'pearson' as const, level: 0.95, alpha: 0.05, drawLimit: 2000 };
 
 describe('Q-Q plot geometry', () => {
-  test('plotting positions equal R ppoints(5) and ppoints(20) (a = 3/8 up to 10 points, 1/2 above)', () => {
-    R.ppoints5.forEach((p: number, i: number) => expect(rel(plottingPosition(i, 5), p)).toBeLessThan(1e-15));
-    R.ppoints20.forEach((p: number, i: number) => expect(rel(plottingPosition(i, 20), p)).toBeLessThan(1e-15));
-  });
-
   test("Anscombe's set 1 residuals: abscissae equal R qqnorm(e)$x and the line equals R's qqline rule", () => {
-    const v = analyseRelationship(pairs(R.qq.x, R.qq.y), opts) as RelationshipView;
-    R.qq.normalScores.forEach((z: number, i: number) => expect(rel(v.drawn.normalScore[i], z)).toBeLessThan(1e-9));
-    expect(rel(v.qqLine.slope, R.qq.slope)).toBeLessThan(1e-9);
-    expect(rel(v.qqLine.intercept, R.qq.intercept)).toBeLessThan(1e-9);
+    const v = analyseRelationship(pairs(QQ.x, QQ.y), opts) as RelationshipView;
+    QQ.normalScores.forEach((z: number, i: number) => expect(rel(v.drawn.normalScore[i], z)).toBeLessThan(1e-9));
+    expect(rel(v.qqLine.slope, QQ.slope)).toBeLessThan(1e-9);
+    expect(rel(v.qqLine.intercept, QQ.intercept)).toBeLessThan(1e-9);
   });
 });
 
@@ -111,18 +108,20 @@ describe('redraws after an edit', () => {
   let outside = 0;
   while (base.includes(outside)) outside++;
   const fresh = (xs: number[], ys: number[]) => lowess(Float64Array.from(base, (i) => xs[i]), Float64Array.from(base, (i) => ys[i]));
+  // One memory across the redraws below, as the panel holds one: the reuse paths are what is under test.
+  const memory = new RedrawMemory();
 
   test('the smooth follows an edit inside its sample and stays for one outside it', () => {
-    const v1 = analyseRelationship(pairs(x, y), opts) as RelationshipView;
+    const v1 = analyseRelationship(pairs(x, y), opts, memory) as RelationshipView;
     expect(Array.from(v1.smooth!.y)).toEqual(Array.from(fresh(x, y).y));
     v1.smooth!.y.fill(NaN); // the caller owns its copy (the worker transfers it away)
     const y2 = y.slice();
     y2[inSample] += 40;
-    const v2 = analyseRelationship(pairs(x, y2), opts) as RelationshipView;
+    const v2 = analyseRelationship(pairs(x, y2), opts, memory) as RelationshipView;
     expect(Array.from(v2.smooth!.y)).toEqual(Array.from(fresh(x, y2).y));
     const y3 = y2.slice();
     y3[outside] += 40;
-    const v3 = analyseRelationship(pairs(x, y3), opts) as RelationshipView;
+    const v3 = analyseRelationship(pairs(x, y3), opts, memory) as RelationshipView;
     expect(Array.from(v3.smooth!.y)).toEqual(Array.from(fresh(x, y3).y));
     expect(Array.from(v3.smooth!.x)).toEqual(Array.from(fresh(x, y3).x));
   });
@@ -130,10 +129,10 @@ describe('redraws after an edit', () => {
   test('the drawn points follow a change in the flagged rows', () => {
     const y2 = y.slice();
     y2[outside] += 1000; // a gross outlier, not in the hash sample: drawn only because it is flagged
-    const v = analyseRelationship(pairs(x, y2), opts) as RelationshipView;
+    const v = analyseRelationship(pairs(x, y2), opts, memory) as RelationshipView;
     expect(v.flaggedRows).toContain(outside + 2);
     expect(Array.from(v.drawn.rows)).toContain(outside + 2);
-    const back = analyseRelationship(pairs(x, y), opts) as RelationshipView;
+    const back = analyseRelationship(pairs(x, y), opts, memory) as RelationshipView;
     expect(Array.from(back.drawn.rows)).not.toContain(outside + 2);
     expect(Array.from(back.drawn.rows)).toEqual(Array.from(drawSample(n, back.flaggedRows.map((r) => r - 2), opts.drawLimit), (i) => i + 2));
   });

@@ -4,7 +4,7 @@
  * special characters in a column name escaped by a single quote ("Using structured references with Excel
  * tables").
  */
-import { parseAddress } from '../../../taskpane/address';
+import { parseAddress } from '../../../src/sheet/a1';
 import { allBlank, columnReference, escapeColumnName, formulaBlock, formulaPlaces, reportSheetCells, ColumnRef } from '../../../taskpane/sheet-output';
 
 const block = (a: string) => parseAddress(a)![0];

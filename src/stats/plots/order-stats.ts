@@ -1,15 +1,14 @@
 /**
- * Order statistics without sorting all n values: the panel needs the quartiles of the residuals (Q-Q reference
- * line) and the ranks of the few thousand drawn residuals among all of them (Q-Q abscissae). Sorting 100,000
- * values on every redraw costs more than everything else the panel computes, so:
+ * Order statistics without sorting all n values: a Q-Q plot needs the quartiles of the residuals (its reference
+ * line) and the ranks of the few thousand drawn residuals among all of them (its abscissae). Sorting 100,000
+ * values on every redraw of the panel costs more than everything else it computes, so:
  * - quantiles come from selection, O(n) on average (Hoare 1961, "Algorithm 65: FIND", Comm. ACM 4:321);
  * - ranks of m drawn values among n come from one pass with a bucketed search each, O(n) for spread-out values.
  * Pure.
  */
 
-export { selectKth } from '../src/stats/internal/select';
-import { selectKth } from '../src/stats/internal/select';
-import { borrowF64, giveBack } from '../src/stats/internal/scratch';
+import { selectKth } from '../internal/select';
+import { borrowF64, giveBack } from '../internal/scratch';
 
 /**
  * Sample quantiles by R's default rule (type 7: Hyndman & Fan 1996, "Sample quantiles in statistical packages",

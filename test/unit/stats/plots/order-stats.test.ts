@@ -4,7 +4,8 @@
  * quantile(1:4, c(.25, .75)) = 1.75, 3.25 in R) and average ranks.
  */
 import fc from 'fast-check';
-import { ranksAmong, selectKth, typeSevenQuantiles } from '../../../taskpane/order-stats';
+import { selectKth } from '../../../../src/stats/internal/select';
+import { ranksAmong, typeSevenQuantiles } from '../../../../src/stats/plots/order-stats';
 
 function bySorting(values: number[], p: number): number {
   const s = [...values].sort((a, b) => a - b);
