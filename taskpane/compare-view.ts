@@ -10,7 +10,7 @@ import { compareSharedSamples } from '../src/stats/compare/shared';
 import { ComparisonResult, pearsonFisherInterval } from '../src/stats/compare/comparison';
 import { Interval, StatsInputError } from '../src/stats/types';
 import { Design, DesignDetection } from './design';
-import { completeRows, dataBlock, pairColumns, PairingError } from './pairs';
+import { completeRows, dataBlock, pairColumns, PairedRows, PairingError } from './pairs';
 import type { NumericColumnRead } from './workbook';
 
 export interface CompareView {
@@ -37,6 +37,7 @@ export function isCompareFailure(v: CompareView | CompareFailure): v is CompareF
 /**
  * Compares pair A = (a[0], a[1]) with pair B = (b[0], b[1]) under `design`; for "shared", `detection.common`
  * says which column is in both pairs.
+ * @param pairedA pair A's complete pairs when the caller has them already (the panel pairs A once per refresh)
  */
 export function computeComparison(
   a: [NumericColumnRead, NumericColumnRead],
@@ -44,6 +45,7 @@ export function computeComparison(
   design: Design,
   detection: DesignDetection,
   level: number,
+  pairedA?: PairedRows,
 ): CompareView | CompareFailure {
   const opts = { tail: 'both' as const, level };
   const labels = { a: `${a[1].header} with ${a[0].header}`, b: `${b[1].header} with ${b[0].header}` };
@@ -51,7 +53,7 @@ export function computeComparison(
     let result: ComparisonResult;
     let skipped = 0;
     if (design === 'independent') {
-      const pa = pairColumns(a[0], a[1]);
+      const pa = pairedA ?? pairColumns(a[0], a[1]);
       const pb = pairColumns(b[0], b[1]);
       skipped = pa.skipped + pb.skipped;
       result = compareIndependentSamples(pa.x, pa.y, pb.x, pb.y, opts);

@@ -17,9 +17,12 @@ export function describeSource(s: ColumnSource): string {
   return s.kind === 'table' ? `${s.table}[${s.column}]` : s.address;
 }
 
+/**
+ * The picker holds no pick of its own: the panel's state does, and the picker reads it through `current` (so the
+ * two can never disagree) and reports a new pick through `onChoose`.
+ */
 export class PairPicker {
   readonly element: HTMLElement;
-  private choice: PairChoice | null = null;
   private pendingX: ColumnSource | null = null;
   private tables: TableInfo[] = [];
   private readonly modeSelection: HTMLButtonElement;
@@ -36,6 +39,7 @@ export class PairPicker {
     private readonly wb: Workbook,
     prefix: string,
     private readonly names: { x: string; y: string },
+    private readonly current: () => PairChoice | null,
     private readonly onChoose: (choice: PairChoice) => void,
   ) {
     this.modeSelection = el('button', { class: 'cv-seg cv-seg-on', text: 'Selected cells', testid: `${prefix}-mode-selection`, attrs: { type: 'button', 'aria-pressed': 'true' } });
@@ -83,13 +87,8 @@ export class PairPicker {
     this.ySelect.addEventListener('change', () => this.chooseFromTable());
   }
 
-  get current(): PairChoice | null {
-    return this.choice;
-  }
-
-  /** Sets the pair without a user action (initial pick); does not call onChoose. */
-  set(choice: PairChoice): void {
-    this.choice = choice;
+  /** Shows a pair set without a user action (the initial pick); does not call onChoose. */
+  show(choice: PairChoice): void {
     if (choice.x.kind === 'table' && choice.y.kind === 'table' && choice.x.table === choice.y.table) {
       this.setMode('table');
       void this.loadTables().then(() => {
@@ -100,7 +99,7 @@ export class PairPicker {
         this.ySelect.value = choice.y.column;
       });
     }
-    this.showSources();
+    this.showSources(choice);
   }
 
   /** Shows what was actually read, e.g. "x: Visits (Branches!C2:C49)". */
@@ -111,9 +110,8 @@ export class PairPicker {
     ]);
   }
 
-  private showSources(): void {
-    if (!this.choice) return;
-    this.showResolved({ header: describeSource(this.choice.x), where: 'reading…' }, { header: describeSource(this.choice.y), where: 'reading…' });
+  private showSources(choice: PairChoice): void {
+    this.showResolved({ header: describeSource(choice.x), where: 'reading…' }, { header: describeSource(choice.y), where: 'reading…' });
   }
 
   private say(text: string): void {
@@ -167,8 +165,7 @@ export class PairPicker {
   }
 
   private commit(choice: PairChoice): void {
-    this.choice = choice;
-    this.showSources();
+    this.showSources(choice);
     this.onChoose(choice);
   }
 
@@ -203,8 +200,9 @@ export class PairPicker {
       return;
     }
     const source: ColumnSource = { kind: 'range', address: formatBlock(one) };
-    const other = axis === 'x' ? this.choice?.y ?? null : this.choice?.x ?? this.pendingX;
-    if (axis === 'x' && !this.choice) {
+    const choice = this.current();
+    const other = axis === 'x' ? choice?.y ?? null : choice?.x ?? this.pendingX;
+    if (axis === 'x' && !choice) {
       this.pendingX = source;
       this.say(`${this.names.x} set to ${source.address}. Now select the ${this.names.y} column.`);
       return;

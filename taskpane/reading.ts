@@ -5,28 +5,8 @@
  * words. Pure.
  */
 import { STRENGTH_CONVENTION, strengthWord, tauOnRScale } from '../src/stats/checks/advice';
+import { formatCount, formatPValue, formatR } from '../src/stats/format';
 import type { CorrelationResult } from '../src/stats/types';
-
-/** r, an interval bound or a difference, two decimals with a true minus sign. */
-export function formatR(r: number): string {
-  if (!Number.isFinite(r)) return '–';
-  let s = r.toFixed(2);
-  // Keep the sign visible when two decimals would round a small value to zero (an interval bound just below 0).
-  if (r !== 0 && Math.abs(r) < 0.005) s = r.toFixed(3);
-  return s.replace('-', '−');
-}
-
-/** A p-value for display: "< 0.001" below a thousandth, else three decimals. */
-export function formatPValue(p: number): string {
-  if (!Number.isFinite(p)) return '–';
-  if (p < 0.001) return '< 0.001';
-  return p.toFixed(3);
-}
-
-/** A whole count with thousands separators. */
-export function formatCount(n: number): string {
-  return Math.round(n).toLocaleString('en-US');
-}
 
 /**
  * Two or three short sentences: the strength and direction, the interval, the p-value.

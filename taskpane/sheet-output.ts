@@ -5,7 +5,7 @@
  */
 import { CellBlock, formatBlock } from '../src/sheet/a1';
 import type { ColumnSource } from './workbook';
-import type { Method } from '../src/stats/types';
+import { Method, METHOD_LABELS } from '../src/stats/types';
 
 /** How one column of the pair is referred to in a formula. */
 export interface ColumnRef {
@@ -46,8 +46,6 @@ export interface FormulaOptions {
   a1?: boolean;
 }
 
-const METHOD_NAMES: Record<Method, string> = { pearson: 'Pearson', spearman: 'Spearman', kendall: 'Kendall' };
-
 /** A text for a cell: a string literal inside a formula, doubling quotes. */
 function literal(s: string): string {
   return `"${s.replace(/"/g, '""')}"`;
@@ -68,7 +66,7 @@ export function formulaBlock(
   const pct = `${Math.round(o.level * 1000) / 10}%`;
   return [
     [`Covary: ${names.y} against ${names.x}`, ''],
-    [`Coefficient (${METHOD_NAMES[o.method]})`, `=COVARY.COEF(${args}, ${m})`],
+    [`Coefficient (${METHOD_LABELS[o.method].name})`, `=COVARY.COEF(${args}, ${m})`],
     [`${pct} interval (lower, upper)`, `=COVARY.INTERVAL(${args}, ${o.level}, ${m})`],
     ['p-value (two-sided)', `=COVARY.PVALUE(${args}, "both", ${m})`],
     ['Pairs used', `=COVARY.PAIRS(${args})`],

@@ -1,11 +1,13 @@
-import { CorrelationResult } from '../types';
+import { CorrelationResult, Method } from '../types';
 import { CheckKey, CheckReport } from './check-report';
-import { formatNumber as num } from './format';
+import { formatNumber as num } from '../format';
 
 /** What to report instead (or as well), and why. */
 export interface Recommendation {
   /** A coefficient name ("Pearson", "Spearman", "Kendall tau-b", ...), or "none" when no coefficient is reliable. */
   name: string;
+  /** The method behind that name, or null for "none". */
+  method: Method | null;
   /** True when the recommendation differs from the coefficient that was computed. */
   changed: boolean;
   /** Why, in one or two plain sentences. */
@@ -74,6 +76,7 @@ function listWords(items: string[]): string {
 export function recommendCoefficient(report: CheckReport, chosen: CorrelationResult): Recommendation {
   const n = report.n;
   const rank = n < KENDALL_BELOW_N ? 'Kendall tau-b' : 'Spearman';
+  const rankMethod: Method = n < KENDALL_BELOW_N ? 'kendall' : 'spearman';
   const rankWhy = n < KENDALL_BELOW_N ? `Kendall's tau-b suits fewer than ${KENDALL_BELOW_N} pairs` : '';
   const chosenIsRank = chosen.method !== 'pearson';
   const orderCaution = flagged(report, 'row-order')
@@ -84,6 +87,7 @@ export function recommendCoefficient(report: CheckReport, chosen: CorrelationRes
   if (report.points.setsSlope >= 0) {
     return {
       name: 'none',
+      method: null,
       changed: true,
       reason: `${capital(influence.flag ?? 'one point sets the slope')}: every coefficient, rank-based ones included, rests on that point, so collect data across the range of x before reading a correlation.${orderCaution}`,
     };
@@ -91,6 +95,7 @@ export function recommendCoefficient(report: CheckReport, chosen: CorrelationRes
   if (chosen.name === 'phi') {
     return {
       name: 'phi',
+      method: 'pearson',
       changed: false,
       reason: `Both columns take two values, so phi (Pearson on a 2 x 2 table) is the usual coefficient and the shape checks do not apply.${orderCaution}`,
     };
@@ -118,10 +123,11 @@ export function recommendCoefficient(report: CheckReport, chosen: CorrelationRes
     const also = causes.length > 0 ? ` Also, ${causes.join('; ')}.` : '';
     const follows = 'follows any steadily rising or falling pattern, but if the curve turns back no single coefficient describes it';
     if (chosenIsRank) {
-      return { name: chosen.name, changed: false, reason: `The points bend away from a straight line; ${chosen.name} (as chosen) ${follows}.${also}${orderCaution}` };
+      return { name: chosen.name, method: chosen.method, changed: false, reason: `The points bend away from a straight line; ${chosen.name} (as chosen) ${follows}.${also}${orderCaution}` };
     }
     return {
       name: rank,
+      method: rankMethod,
       changed: true,
       reason: `The points bend away from a straight line, which Pearson's r measures only in part; a rank coefficient${rankTail} ${follows}.${also}${orderCaution}`,
     };
@@ -129,18 +135,18 @@ export function recommendCoefficient(report: CheckReport, chosen: CorrelationRes
   if (causes.length > 0) {
     const why = `${capital(causes.join('; '))}. Rank coefficients resist single points and need no normal shape`;
     if (chosenIsRank) {
-      return { name: chosen.name, changed: false, reason: `${why}, so ${chosen.name} (as chosen) suits these data.${orderCaution}` };
+      return { name: chosen.name, method: chosen.method, changed: false, reason: `${why}, so ${chosen.name} (as chosen) suits these data.${orderCaution}` };
     }
-    return { name: rank, changed: true, reason: `${why}${rankWhy ? `; ${rankWhy}` : ''}.${orderCaution}` };
+    return { name: rank, method: rankMethod, changed: true, reason: `${why}${rankWhy ? `; ${rankWhy}` : ''}.${orderCaution}` };
   }
   if (flagged(report, 'even-spread')) {
-    return { name: chosen.name, changed: false, reason: `The scatter is uneven across x: ${chosen.name} still summarises the trend, but its p-value and interval are approximate.${orderCaution}` };
+    return { name: chosen.name, method: chosen.method, changed: false, reason: `The scatter is uneven across x: ${chosen.name} still summarises the trend, but its p-value and interval are approximate.${orderCaution}` };
   }
   const untested = report.notTestable > 0 ? ` (${report.notTestable} of the eight could not run; see CHECKS)` : '';
   if (orderCaution) {
-    return { name: chosen.name, changed: false, reason: `No check of shape or single points raised a flag${untested}.${orderCaution}` };
+    return { name: chosen.name, method: chosen.method, changed: false, reason: `No check of shape or single points raised a flag${untested}.${orderCaution}` };
   }
-  return { name: chosen.name, changed: false, reason: `No check raised a flag${untested}, so ${chosen.name} can be read as it stands.` };
+  return { name: chosen.name, method: chosen.method, changed: false, reason: `No check raised a flag${untested}, so ${chosen.name} can be read as it stands.` };
 }
 
 function capital(s: string): string {

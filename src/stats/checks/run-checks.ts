@@ -8,7 +8,7 @@ import { breuschPagan } from './breusch-pagan';
 import { CheckKey, CheckReport, CheckRow, PointDiagnostics } from './check-report';
 import { dagostinoPearson } from './dagostino';
 import { durbinWatson } from './durbin-watson';
-import { formatNumber as num, formatP } from './format';
+import { formatNumber as num, formatP } from '../format';
 import { bonferroniOutlierP, cookCutoff, lineInfluence, LineInfluence } from './influence';
 import { distinctUpToThree } from '../correlation/distinct';
 import { curvatureTest } from './linearity';

@@ -44,7 +44,7 @@ test('uneven spread alone: keep the coefficient, its interval is approximate', (
     flags: ['uneven spread'],
   };
   const chosen = correlate(x, y, opts('pearson'));
-  expect(recommendCoefficient(report, chosen)).toEqual({ name: 'Pearson', changed: false, reason: expect.stringMatching(/^The scatter is uneven across x: Pearson still summarises the trend/) });
+  expect(recommendCoefficient(report, chosen)).toEqual({ name: 'Pearson', method: 'pearson', changed: false, reason: expect.stringMatching(/^The scatter is uneven across x: Pearson still summarises the trend/) });
   expect(plainReading(chosen, report, 0.05)).toMatch(/^Taken at face value \(see the flags\), across 30 pairs/);
 });
 

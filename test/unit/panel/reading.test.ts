@@ -1,7 +1,8 @@
 /** The plain-language reading. Strength words follow Cohen (1988), Statistical Power Analysis for the Behavioral
  * Sciences, 2nd ed., ch. 3: |r| = .1 small, .3 medium, .5 large; Kendall's tau is worded on the scale of r by
  * Greiner's relation r = sin(pi tau / 2) (Kendall 1970, Rank Correlation Methods). */
-import { formatPValue, formatR, readCorrelation } from '../../../taskpane/reading';
+import { formatPValue, formatR } from '../../../src/stats/format';
+import { readCorrelation } from '../../../taskpane/reading';
 import type { CorrelationResult } from '../../../src/stats/types';
 
 test('number formats keep a visible sign and a true minus', () => {

@@ -1,10 +1,11 @@
 /**
  * The add-in writes to the workbook only where the user asks: the panel's two buttons ("Put formulas in sheet",
- * "Write report sheet"). Checked statically on the panel sources (taskpane/) with the TypeScript parser:
+ * "Write report sheet"). Checked statically on every panel source (taskpane/ and its subfolders) with the TypeScript
+ * parser:
  * 1. every Excel write (assigning a range's values, formulas or formats; adding, deleting, clearing, inserting,
  *    copying or moving cells or sheets; settings and custom XML) sits in ExcelWorkbook.writeCells or
  *    ExcelWorkbook.addSheet (taskpane/excel-workbook.ts);
- * 2. those two are called only from the button handlers putFormulas and writeReport (taskpane/panel.ts);
+ * 2. those two are called only from the button handlers putFormulas and writeReport (taskpane/write-actions.ts);
  * 3. the handlers are referenced nowhere but in the two buttons' click listeners.
  * The cell functions cannot write at all: in a shared runtime custom functions may only read, and the bundle never
  * touches Office or Excel (host-contract.test.ts, every-function.test.ts).
@@ -23,8 +24,13 @@ const WRITE_METHODS = new Set(['delete', 'clear', 'insert', 'copyFrom', 'moveTo'
 const ALLOWED_WRITERS = new Set(['writeCells', 'addSheet']);
 const BUTTON_HANDLERS = new Set(['putFormulas', 'writeReport']);
 
-function panelFiles(): string[] {
-  return fs.readdirSync(PANEL).filter((f) => f.endsWith('.ts') && !f.endsWith('.d.ts')).map((f) => path.join(PANEL, f));
+/** Every TypeScript source under taskpane/, at any depth. */
+function panelFiles(dir = PANEL): string[] {
+  return fs.readdirSync(dir, { withFileTypes: true }).flatMap((d) => {
+    const full = path.join(dir, d.name);
+    if (d.isDirectory()) return panelFiles(full);
+    return d.name.endsWith('.ts') && !d.name.endsWith('.d.ts') ? [full] : [];
+  });
 }
 
 /** Name of the function, method or variable-held function that encloses a node. */
@@ -89,7 +95,10 @@ function excelWrites(): Found[] {
 
 describe('the panel writes only where the user asks', () => {
   test('the panel sources are there', () => {
-    expect(panelFiles().map((f) => path.basename(f))).toEqual(expect.arrayContaining(['excel-workbook.ts', 'panel.ts']));
+    const names = panelFiles().map((f) => path.relative(PANEL, f).split(path.sep).join('/'));
+    expect(names).toEqual(expect.arrayContaining(['excel-workbook.ts', 'panel.ts', 'write-actions.ts', 'controller.ts']));
+    // The scan reaches the subfolders too (the sections), so a write added there cannot hide.
+    expect(names.filter((n) => n.startsWith('sections/')).length).toBeGreaterThanOrEqual(4);
   });
 
   test('every Excel write is inside ExcelWorkbook.writeCells or ExcelWorkbook.addSheet', () => {

@@ -1,0 +1,59 @@
+/**
+ * Every number the project turns into text, in one place: the sentences of the checks, the advice and the
+ * readings (formatNumber, formatP), and what the panel shows in its tiles and tooltips (formatR, formatPValue,
+ * formatCount, formatValue). Cell answers are numbers and never pass through here.
+ */
+
+/**
+ * A number in `digits` significant digits (default 3), plain for everyday sizes, exponent form for the very
+ * small or large.
+ * @example formatNumber(0.81642) // "0.816"
+ * @example formatNumber(1203.54) // "1204"
+ */
+export function formatNumber(v: number, digits = 3): string {
+  if (v === 0) return '0';
+  if (!Number.isFinite(v)) return v > 0 ? 'infinite' : v < 0 ? '-infinite' : 'undefined';
+  const a = Math.abs(v);
+  if (a >= 1e6 || a < 1e-3) return v.toExponential(digits - 2).replace('e+', 'e');
+  if (a >= 1000) return String(Math.round(v));
+  return String(Number(v.toPrecision(digits)));
+}
+
+/**
+ * A p-value as it reads in a sentence: "p < 0.001" below a thousandth, else two significant digits.
+ * @example formatP(0.0240987) // "p = 0.024"
+ */
+export function formatP(p: number): string {
+  if (p < 0.001) return 'p < 0.001';
+  return `p = ${String(Number(p.toPrecision(2)))}`;
+}
+
+/** r, an interval bound or a difference, two decimals with a true minus sign; "–" when there is none. */
+export function formatR(r: number): string {
+  if (!Number.isFinite(r)) return '–';
+  let s = r.toFixed(2);
+  // Keep the sign visible when two decimals would round a small value to zero (an interval bound just below 0).
+  if (r !== 0 && Math.abs(r) < 0.005) s = r.toFixed(3);
+  return s.replace('-', '−');
+}
+
+/** A p-value for display: "< 0.001" below a thousandth, else three decimals; "–" when there is none. */
+export function formatPValue(p: number): string {
+  if (!Number.isFinite(p)) return '–';
+  if (p < 0.001) return '< 0.001';
+  return p.toFixed(3);
+}
+
+/** A whole count with thousands separators. */
+export function formatCount(n: number): string {
+  return Math.round(n).toLocaleString('en-US');
+}
+
+/** A cell value in a tooltip: four significant digits (exponent form beyond 1e6 or below 1e-3); "–" when missing. */
+export function formatValue(v: number): string {
+  if (!Number.isFinite(v)) return '–';
+  if (v === 0) return '0';
+  const a = Math.abs(v);
+  if (a >= 1e6 || a < 1e-3) return v.toExponential(2);
+  return String(Number(v.toPrecision(4)));
+}

@@ -1,0 +1,75 @@
+/**
+ * The panel's only two ways of writing to the workbook, each behind its own button: "Put formulas in sheet" (the
+ * COVARY formulas for the current pair, beside the data) and "Write report sheet" (a new sheet of live formulas).
+ * Nothing else in the panel calls Workbook.writeCells or Workbook.addSheet (test/unit/security/
+ * writes-only-when-asked.test.ts holds that).
+ */
+import { formatBlock } from '../src/sheet/a1';
+import { button, el } from './dom';
+import { PANEL_TEST_IDS } from './panel-api';
+import type { PairChoice } from './pair-picker';
+import { dataBlock } from './pairs';
+import { allBlank, ColumnRef, formulaBlock, FormulaOptions, formulaPlaces, reportSheetCells, topLeftOf } from './sheet-output';
+import type { NumericColumnRead, Workbook } from './workbook';
+
+/** What the buttons write about: the pair as last read, and the options in force. */
+export interface WriteSubject {
+  reads: [NumericColumnRead, NumericColumnRead];
+  choice: PairChoice;
+  options: FormulaOptions;
+}
+
+/** The two buttons and the line that says what they did. */
+export function writeActions(wb: Workbook, subject: () => WriteSubject | null): HTMLElement {
+  const formulasButton = button('Put formulas in sheet', PANEL_TEST_IDS.formulasButton, 'primary');
+  const reportButton = button('Write report sheet', PANEL_TEST_IDS.reportButton);
+  const status = el('div', { class: 'cv-inline-message', testid: PANEL_TEST_IDS.actionStatus, attrs: { role: 'status' } });
+
+  const refsOf = (s: WriteSubject): [ColumnRef, ColumnRef] => [
+    { source: s.choice.x, block: dataBlock(s.reads[0]) },
+    { source: s.choice.y, block: dataBlock(s.reads[1]) },
+  ];
+
+  async function putFormulas(): Promise<void> {
+    const s = subject();
+    if (!s) {
+      status.textContent = 'Pick two columns first.';
+      return;
+    }
+    const [xr, yr] = refsOf(s);
+    const sheet = xr.block.sheet;
+    try {
+      for (const place of formulaPlaces([xr.block, yr.block])) {
+        const seen = await wb.readRange(formatBlock(place));
+        if (!allBlank(seen.values)) continue;
+        const cells = formulaBlock(xr, yr, { x: s.reads[0].header, y: s.reads[1].header }, sheet, s.options);
+        await wb.writeCells(topLeftOf(place), cells);
+        status.textContent = `Formulas written at ${formatBlock({ ...place, lastColumn: place.firstColumn + 1 })}. They recalculate with the sheet.`;
+        return;
+      }
+      status.textContent = 'No empty space found to the right of the data: clear a few columns there and try again.';
+    } catch (e) {
+      status.textContent = `Could not write the formulas: ${e instanceof Error ? e.message : String(e)}`;
+    }
+  }
+
+  async function writeReport(): Promise<void> {
+    const s = subject();
+    if (!s) {
+      status.textContent = 'Pick two columns first.';
+      return;
+    }
+    const [xr, yr] = refsOf(s);
+    try {
+      const cells = reportSheetCells(xr, yr, { x: s.reads[0].header, y: s.reads[1].header }, s.options, new Date());
+      const name = await wb.addSheet('Covary report', cells);
+      status.textContent = `Report written to the sheet "${name}".`;
+    } catch (e) {
+      status.textContent = `Could not write the report sheet: ${e instanceof Error ? e.message : String(e)}`;
+    }
+  }
+
+  formulasButton.addEventListener('click', () => void putFormulas());
+  reportButton.addEventListener('click', () => void writeReport());
+  return el('div', {}, [el('div', { class: 'cv-row cv-wrap cv-actions' }, [formulasButton, reportButton]), status]);
+}
