@@ -11,11 +11,15 @@ const fs = require('fs');
 const CustomFunctionsMetadataPlugin = require('custom-functions-metadata-plugin');
 
 const dist = path.resolve(__dirname, 'dist');
+// The one list of cell-function modules is the imports of src/functions/functions.ts: the bundle is built from it,
+// and the metadata plugin reads the same files (test/unit/functions/registration.test.ts holds the two together).
 const functionSources = fs
-  .readdirSync(path.resolve(__dirname, 'src/functions'))
-  .filter((f) => /^fn-.*\.ts$/.test(f))
-  .sort()
-  .map((f) => './src/functions/' + f);
+  .readFileSync(path.resolve(__dirname, 'src/functions/functions.ts'), 'utf8')
+  .split('\n')
+  .map((line) => /^import '\.\/(fn-[a-z-]+)';$/.exec(line.trim()))
+  .filter(Boolean)
+  .map((m) => `./src/functions/${m[1]}.ts`);
+if (functionSources.length === 0) throw new Error('src/functions/functions.ts imports no fn-*.ts module');
 
 const common = (mode) => ({
   mode,

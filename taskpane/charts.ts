@@ -41,14 +41,22 @@ export const PALETTE = {
   text: '#3b3b3b',
 };
 
-/** What every chart here shares: no animation (a redraw is instant), sized by its frame, and data handed over
- *  already in Chart.js's own {x, y} form, so it is not parsed again. */
-const STATIC_CHART = { animation: false, responsive: true, maintainAspectRatio: false, parsing: false } as const;
-
 const FONT_STACK = "'Segoe UI', 'Segoe UI Web (West European)', -apple-system, BlinkMacSystemFont, Roboto, 'Helvetica Neue', sans-serif";
-Chart.defaults.font.family = FONT_STACK;
-Chart.defaults.font.size = 11;
-Chart.defaults.color = PALETTE.text;
+
+/** What every chart here shares: no animation (a redraw is instant), sized by its frame, data handed over already
+ *  in Chart.js's own {x, y} form (so it is not parsed again), and the panel's type and text colour. Set on each
+ *  chart, never on Chart.js's global defaults, so importing this module changes nothing for anyone else. */
+const STATIC_CHART = {
+  animation: false,
+  responsive: true,
+  maintainAspectRatio: false,
+  parsing: false,
+  font: { family: FONT_STACK, size: 11 },
+  color: PALETTE.text,
+} as const;
+
+/** Tick and title text of an axis, in the panel's type (per chart, as above). */
+const AXIS_TEXT = { font: { family: FONT_STACK, size: 11 }, color: PALETTE.text } as const;
 
 /** A drawn point: its position, its sheet row, and why it is highlighted (0 = not). */
 export interface PlotPoint {
@@ -161,12 +169,13 @@ export class PointPlot {
         interaction: { mode: 'nearest', intersect: true },
         layout: { padding: 2 },
         scales: {
-          x: { type: 'linear', title: { display: true, text: '' }, grid: { color: PALETTE.grid } },
-          y: { type: 'linear', title: { display: true, text: '' }, grid: { color: PALETTE.grid } },
+          x: { type: 'linear', title: { display: true, text: '', ...AXIS_TEXT }, ticks: { ...AXIS_TEXT }, grid: { color: PALETTE.grid } },
+          y: { type: 'linear', title: { display: true, text: '', ...AXIS_TEXT }, ticks: { ...AXIS_TEXT }, grid: { color: PALETTE.grid } },
         },
         plugins: {
           tooltip: {
             displayColors: false,
+            bodyFont: { family: FONT_STACK, size: 11 },
             filter: (item: TooltipItem<'scatter'>) => item.dataset.type === 'scatter',
             callbacks: {
               title: () => '',
@@ -285,7 +294,7 @@ export class IntervalPlot {
         events: [],
         layout: { padding: { left: 2, right: 8, top: 2, bottom: 2 } },
         scales: {
-          x: { type: 'linear', title: { display: true, text: 'correlation (difference: A − B)' }, grid: { color: PALETTE.grid } },
+          x: { type: 'linear', title: { display: true, text: 'correlation (difference: A − B)', ...AXIS_TEXT }, ticks: { ...AXIS_TEXT }, grid: { color: PALETTE.grid } },
           y: {
             type: 'linear',
             reverse: true,
@@ -294,7 +303,7 @@ export class IntervalPlot {
             afterBuildTicks: (axis) => {
               axis.ticks = this.labels.map((_, i) => ({ value: i }));
             },
-            ticks: { autoSkip: false, callback: (v) => this.labels[Number(v)] ?? '' },
+            ticks: { ...AXIS_TEXT, autoSkip: false, callback: (v) => this.labels[Number(v)] ?? '' },
           },
         },
         plugins: { tooltip: { enabled: false } },

@@ -280,10 +280,13 @@ export class PanelController {
       lap('pair');
       const n = pairs.x.length;
       const inWorker = this.compute.usesWorker(n);
-      if (inWorker || n >= this.compute.workerThreshold) {
-        this.showProgress(`Computing on ${formatCount(n)} rows${inWorker ? ' in the background; the sheet stays usable' : ''}…`);
-      }
-      const view = await this.compute.analyse(pairs, this.options(), () => undefined);
+      const long = inWorker || n >= this.compute.workerThreshold;
+      const progressText = `Computing on ${formatCount(n)} rows${inWorker ? ' in the background; the sheet stays usable' : ''}`;
+      if (long) this.showProgress(`${progressText}…`);
+      // The compute client says where the work stands (sent to the background thread, computing).
+      const view = await this.compute.analyse(pairs, this.options(), (stage) => {
+        if (long && gen === this.generation) this.showProgress(`${progressText}: ${stage}…`);
+      });
       if (gen !== this.generation) return;
       lap('compute');
       this.showProgress(null);

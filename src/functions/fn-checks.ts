@@ -2,7 +2,9 @@
  * Cell functions for the assumption checks of a correlation: the eight-row table (CHECKS), the raised flags in one
  * cell (FLAGS) and the full report with advice (REPORT). Thin adapter: read cells, call the core
  * (src/stats/checks), shape the answer. The check report is computed once per data and sheet position and shared
- * with every other function (and the panel) through the shared pairs cache.
+ * by every cell function on the same cells through the content cache (shared-pairs.ts). The panel builds its own
+ * prepared pairs from what it reads through the Excel API and comes to the same core entry point
+ * (src/stats/checks/checked.ts), but does not share this cache.
  */
 import { recommendCoefficient, plainReading, coefficientSymbol } from '../stats/checks/advice';
 import { CellRange } from '../sheet/cells';

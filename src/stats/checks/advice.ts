@@ -1,4 +1,4 @@
-import { CorrelationResult, Method } from '../types';
+import { CorrelationResult, Method, METHOD_LABELS } from '../types';
 import { CheckKey, CheckReport } from './check-report';
 import { formatNumber as num } from '../format';
 
@@ -155,7 +155,7 @@ function capital(s: string): string {
 
 /** The symbol a coefficient is reported under. */
 export function coefficientSymbol(result: CorrelationResult): string {
-  return result.method === 'spearman' ? 'rho' : result.method === 'kendall' ? 'tau-b' : 'r';
+  return METHOD_LABELS[result.method].symbol;
 }
 
 /**

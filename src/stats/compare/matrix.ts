@@ -37,18 +37,20 @@ export interface CorrelationMatrix {
 
 /**
  * How long a matrix may take, and the cost model that predicts it before any work is done. Figures measured on
- * the project's 2-core build machine (node 20, the core compiled by tsc), best of three runs on a shared machine,
- * then rounded up:
+ * the project's 2-core machine with today's sort (internal/sort.ts: comparison sort below 64 keys, 11-bit radix
+ * passes from 64), through dist/functions.js in plain node 20, best of three calls on two-decimal data, then
+ * rounded up (a first call at the limit, compilation included, must stay within the budget):
  * - "linear" pairs (Pearson; Spearman on columns without gaps, ranked once per column): about 10 us per pair
- *   plus 30 ns per row.
- * - "sorted" pairs (Kendall; Spearman on a pair with gaps, ranked per pair): each pair sorts its rows. Below 256
- *   rows about 15 us per pair plus 0.7 us per row; from 256 rows the sort changes method and costs about 1.2 ms
- *   per pair plus 0.4 us per row.
- * Timings inside jest run many times slower than in plain node or a browser (seen: 75 s in jest against 1.6 s
- * in node for the same 200 x 1,341 Pearson matrix on the same loaded machine), so the figures come from node.
- * Check on the same machine under a load average of 12 (other builds running): requests at the limit took
- * 1.2 s (Pearson, 200 x 1,341), 0.9 s (Pearson, 40 x 42,401), 0.7 s (Kendall, 60 x 255), 2.0 s (Kendall,
- * 15 x 20,809) and 1.3 s (Kendall, 200 x 50).
+ *   plus 30 ns per row (measured 29 us per pair at 1,000 rows, 104 at 5,000, 357-503 at 20,000, 832-1,007 at
+ *   40,000).
+ * - "sorted" pairs (Kendall; Spearman on a pair with gaps, ranked per pair): each pair sorts its rows. Below 64
+ *   rows about 25 us per pair plus 0.5 us per row (measured 28-45 us); from 64 rows about 40 us plus 0.25 us per
+ *   row (measured Kendall: 65 us at 256 rows, 156 at 1,000, 803 at 5,000, 3,313 at 20,000; Spearman with gaps
+ *   below that).
+ * First calls at the limit (plain node, same machine): Kendall 200 x 50 in 571 ms, 60 x 2,099 in 703 ms,
+ * 15 x 37,935 in 813 ms; Pearson 200 x 1,341 in 457 ms, 40 x 42,401 in 729 ms.
+ * Timings inside jest (or any vm context, where every global lookup is intercepted) run many times slower than in
+ * plain node or a browser, so the figures come from node.
  * The budget is 1 s on that machine: a fifth of the roughly 5 s after which Excel desktop restarts an
  * unresponsive add-in, leaving room for slower computers. maxColumns keeps the answer (maxColumns^2 cells,
  * 40,000 for 200) far below the ~5 MB one custom-function call may return, and readable.
@@ -61,8 +63,8 @@ export const MATRIX_LIMITS = {
 /** Predicted microseconds for one pair over `rows` rows. */
 function pairMicroseconds(kind: 'linear' | 'sorted', rows: number): number {
   if (kind === 'linear') return 10 + 0.03 * rows;
-  // argsort (sort.ts) sorts by comparison below 256 keys and by four 16-bit radix passes from 256 on.
-  return rows < 256 ? 15 + 0.7 * rows : 1200 + 0.4 * rows;
+  // argsort (internal/sort.ts) sorts by comparison below 64 keys and by 11-bit radix passes from 64 on.
+  return rows < 64 ? 25 + 0.5 * rows : 40 + 0.25 * rows;
 }
 
 /** Predicted milliseconds for the given numbers of linear and sorted pairs over `rows` rows. */

@@ -1,4 +1,4 @@
-import { coMoments, CoMoments } from './comoments';
+import { CoMoments } from './comoments';
 import { StatsInputError } from '../types';
 
 /** Clip a coefficient to [-1, 1]: rounding can push |r| a hair past 1 on perfectly linear data. */
@@ -18,15 +18,4 @@ export function pearsonFromMoments(m: CoMoments): number {
   // One rounding in the product and one in the root; the split form only where the product would leave range.
   const denom = prod > 1e-300 && prod < 1e300 ? Math.sqrt(prod) : Math.sqrt(m.sxx) * Math.sqrt(m.syy);
   return clipUnit(m.sxy / denom);
-}
-
-/**
- * Pearson product-moment correlation of two equal-length finite columns.
- * @throws StatsInputError when a column is constant or the lengths differ.
- * @example pearson([1, 2, 3, 4], [0, 1, 0.5, 1]) // 0.6741998624632421
- */
-export function pearson(x: ArrayLike<number>, y: ArrayLike<number>): number {
-  const m = coMoments(x, y);
-  assertVaries(m);
-  return pearsonFromMoments(m);
 }

@@ -7,9 +7,10 @@ import { argsortKeyed, KeyedOrder, releaseKeyedOrder } from '../internal/sort';
 
 /**
  * Two paired columns with the expensive intermediate results computed once, on first use: co-moments, ranks,
- * Kendall's counts, the line fit, and anything else a caller memoises by key (assumption checks, say). Every cell
- * function and the panel that look at the same data share one of these, so sorting a million rows happens once
- * per recalculation, not once per function.
+ * Kendall's counts, the line fit, and anything else a caller memoises by key (the check report, say). Every cell
+ * function looking at the same cells shares one of these through the content cache (src/functions/shared-pairs.ts),
+ * so sorting a million rows happens once per recalculation, not once per function; the panel makes one per redraw
+ * and releases it when the view is built.
  */
 export class PreparedPairs {
   readonly x: Float64Array;

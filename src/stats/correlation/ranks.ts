@@ -20,17 +20,3 @@ export function averageRanks(v: ArrayLike<number>, order: Uint32Array<ArrayBuffe
   }
   return ranks;
 }
-
-/** Sizes of the tie groups (only groups of 2 or more) of a column, given its sorted order. */
-export function tieGroups(v: ArrayLike<number>, order: Uint32Array<ArrayBufferLike>): number[] {
-  const groups: number[] = [];
-  const n = v.length;
-  let i = 0;
-  while (i < n) {
-    let j = i + 1;
-    while (j < n && v[order[j]] === v[order[i]]) j++;
-    if (j - i > 1) groups.push(j - i);
-    i = j;
-  }
-  return groups;
-}

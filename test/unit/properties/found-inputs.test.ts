@@ -5,12 +5,12 @@
  */
 import rRef from '../../fixtures/stress/stress-r.json';
 import { expectRel } from '../../helpers/close';
-import { callCell, describeOutcome, isRegistered } from './support/registry';
+import { callCell, describeOutcome } from './support/registry';
 
 const col = (v: number[]) => v.map((a) => [a]);
 const scaled = (v: number[], s: number) => v.map((a) => a * s);
 
-(isRegistered('PARTIAL') ? describe : describe.skip)('PARTIAL at tiny and huge magnitudes (R: cor of lm residuals)', () => {
+describe('PARTIAL at tiny and huge magnitudes (R: cor of lm residuals)', () => {
   // R 4.2.2 on the unscaled data: cor(resid(lm(x ~ z)), resid(lm(y ~ z))) (test/fixtures/stress/make-stress.R).
   // Multiplying every column by the same factor does not change a partial correlation. 1e-160 and 1e160 are
   // typical of measurements in other units (e.g. probabilities of rare events, or amounts in tiny units); squared
@@ -47,7 +47,7 @@ describe('units that differ by about 1e308 between x and y (each value within 1e
   const inv = { parameterAddresses: ['Sheet1!B2:B10', 'Sheet1!C2:C10', null], address: 'Sheet1!E2' };
   const statisticsOf = (v: unknown) => (v as unknown[][]).slice(1).map((r) => [r[0], r[2], r[3], r[4]]);
 
-  (isRegistered('CHECKS') ? test : test.skip)('CHECKS(x * 2^-705, y * 2^319) = CHECKS(x, y) in every statistic, p-value and verdict', () => {
+  test('CHECKS(x * 2^-705, y * 2^319) = CHECKS(x, y) in every statistic, p-value and verdict', () => {
     const plain = callCell('CHECKS', [col(rRef.x), col(rRef.y), null, inv]);
     const rescaled = callCell('CHECKS', [col(scaled(rRef.x, 2 ** -705)), col(scaled(rRef.y, 2 ** 319)), null, inv]);
     if (plain.kind !== 'value' || rescaled.kind !== 'value') throw new Error(`${describeOutcome(plain)} vs ${describeOutcome(rescaled)}`);
@@ -63,7 +63,7 @@ describe('units that differ by about 1e308 between x and y (each value within 1e
     });
   });
 
-  (isRegistered('REPORT') ? test : test.skip)('REPORT(x * 1e-300, y * 1e300) answers: the coefficient rows as for (x, y), the slope shown or left out', () => {
+  test('REPORT(x * 1e-300, y * 1e300) answers: the coefficient rows as for (x, y), the slope shown or left out', () => {
     const out = callCell('REPORT', [col(scaled(rRef.x, 1e-300)), col(scaled(rRef.y, 1e300)), null, null, inv]);
     if (out.kind !== 'value') throw new Error(`REPORT refused: ${describeOutcome(out)}`);
     const r = (out.value as unknown[][]).find((row) => row[0] === 'r')?.[1] as number;
@@ -71,7 +71,7 @@ describe('units that differ by about 1e308 between x and y (each value within 1e
   });
 });
 
-(isRegistered('CHECKS') ? describe : describe.skip)('CHECKS on data that lie exactly on a line: the same answer in any row order', () => {
+describe('CHECKS on data that lie exactly on a line: the same answer in any row order', () => {
   // Residuals of an exact fit are rounding noise; their size and pattern depend on the order of the sums. The
   // residual checks (normal residuals, even spread, outliers, influence) must not report that noise as a
   // finding, and must say the same thing whatever the row order: both orders "not testable", or the same numbers.
@@ -107,7 +107,7 @@ describe('units that differ by about 1e308 between x and y (each value within 1e
   });
 });
 
-(isRegistered('CHECKS') ? describe : describe.skip)('CHECKS: a huge studentized residual does not depend on row order', () => {
+describe('CHECKS: a huge studentized residual does not depend on row order', () => {
   // 18 rows, all 0 but x = 0.046122331575141125 in row 8 and y = 33.63497555062446 in row 7 and -0.0010070694050302589
   // in row 17: the other rows lie exactly on a line, so one row's externally studentized residual is about 1.3e5.
   // Its leave-one-out spread must be computed without cancellation: the same value (to 1e-9) in any row order.

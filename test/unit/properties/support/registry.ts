@@ -22,8 +22,23 @@ export function metaOf(id: string): FunctionMeta | undefined {
   return functionsMeta.find((f) => f.id === id);
 }
 
-export function isRegistered(id: string): boolean {
-  return host.fns.has(id);
+/**
+ * Every function the add-in must offer. Written out, not read from the build, so a function that goes missing
+ * fails test/unit/functions/registration.test.ts instead of dropping out of the property tests unnoticed; a new
+ * function is added here when it lands.
+ */
+export const EXPECTED_FUNCTIONS = [
+  'COEF', 'INTERVAL', 'PVALUE', 'PAIRS', 'REPORTED',
+  'CHECKS', 'FLAGS', 'REPORT',
+  'DIFF_GROUPS', 'DIFF_SHARED', 'DIFF_SEPARATE', 'DIFF_REPORTED', 'PARTIAL', 'MATRIX',
+  'POWER', 'SAMPLE_SIZE', 'DETECTABLE',
+] as const;
+
+/** The metadata of a function that must be registered; throws (failing the test that asked) when it is not. */
+export function requireFunction(id: string): FunctionMeta {
+  const meta = metaOf(id);
+  if (!meta || !host.fns.has(id)) throw new Error(`${id} is not registered by dist/functions.js`);
+  return meta;
 }
 
 /** The outcome of one call, sorted into what a cell would show. */
