@@ -125,7 +125,7 @@ interface PairAnswer {
 /**
  * Spearman's coefficient and p-value from ranks, the same computation as correlate's Spearman branch (Pearson's
  * r of average ranks, t approximation with n - 2 df); used so that a column without gaps is ranked once, not once
- * per pair. test/unit/compare/matrix.test.ts holds the two paths equal.
+ * per pair. test/unit/stats/compare/matrix.test.ts holds the two paths equal.
  */
 function spearmanFromRanks(rx: ArrayLike<number>, ry: ArrayLike<number>): PairAnswer {
   const m = coMoments(rx, ry);

@@ -9,7 +9,7 @@
  *   - jStat.studentt.cdf(−2, 1e7) is off by 8.3e-8 relative, jStat.studentt.cdf(−5, 10) by 2.8e-10;
  *   - 1 − jStat.chisquare.cdf(100, 1) returns 0 (true 1.52e-23).
  * The implementations here compute every small tail directly. Against 50-digit mpmath values over df from 0.5
- * to 1e7 and tails from ½ down to 1e-250 (test/unit/stats/distributions.test.ts), the largest relative errors
+ * to 1e7 and tails from ½ down to 1e-250 (test/unit/stats/distributions/distributions.test.ts), the largest relative errors
  * are 2e-16 for the normal functions, 2e-13 for the t tails, 3e-14 for the t quantiles, 2e-12 for the F tails
  * (d1 = d2 = 1e6, at 1e-124), 6e-14 for the F quantiles, 5e-13 for the chi-square tails and 2e-14 for its
  * quantiles; most of that is the conditioning of a far tail (a relative change ε in x moves P(T > x) by about

@@ -1,7 +1,7 @@
 /**
  * The cell functions of one correlation, called as Excel calls them (2-D arrays, null for omitted arguments).
  * Expected numbers come from R 4.2.2 cor.test on the Hollander & Wolfe (1973) data (R's ?cor.test example,
- * REFERENCES.md) and from the R fixture in test/fixtures/correlation.
+ * test/references.md) and from the R fixture in test/fixtures/correlation.
  */
 import { COEF, INTERVAL, PAIRS, PVALUE, REPORTED } from '../../../src/functions/fn-correlation';
 import { expectRel } from '../../helpers/close';

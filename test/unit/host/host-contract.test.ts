@@ -6,7 +6,7 @@
 import * as fs from 'fs';
 import { distFile, loadBundle } from '../../helpers/bare-host';
 
-// Hollander & Wolfe (1973) data, as in R's ?cor.test example [source: R stats documentation, REFERENCES.md].
+// Hollander & Wolfe (1973) data, as in R's ?cor.test example [printed: R stats documentation, test/references.md].
 const HW_X = [44.4, 45.9, 41.9, 53.3, 44.7, 44.1, 50.7, 45.2, 60.1];
 const HW_Y = [2.6, 3.1, 2.5, 5.0, 3.6, 4.0, 5.2, 2.8, 3.8];
 const col = (v: unknown[]) => v.map((a) => [a]);
