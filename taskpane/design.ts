@@ -4,8 +4,10 @@
  * separate pairs on the same rows), so the panel proposes one and the user may override it. Pure.
  */
 import { CellBlock, formatBlock } from '../src/sheet/a1';
+import type { ComparisonDesign } from '../src/stats/compare/comparison';
 
-export type Design = 'independent' | 'shared' | 'separate';
+/** The designs are the core's (one type for the statistics and the panel). */
+export type Design = ComparisonDesign;
 
 export const DESIGN_LABELS: Record<Design, string> = {
   independent: 'Two separate groups (different rows)',
