@@ -44,6 +44,8 @@ export interface Interval {
   level: number;
   /** How the interval was made, e.g. "Fisher z, SE = 1/sqrt(n - 3)". */
   method: string;
+  /** Why the bounds are NaN, when they are (too few rows, perfect rank agreement). */
+  note?: string;
 }
 
 /** The statistic behind a p-value. */

@@ -7,7 +7,7 @@ import { StatsInputError } from '../types';
 import { breuschPagan } from './breusch-pagan';
 import { CheckKey, CheckReport, CheckRow, PointDiagnostics } from './check-report';
 import { dagostinoPearson } from './dagostino';
-import { durbinWatson } from './durbin-watson';
+import { durbinWatson, DW_EXACT_MAX } from './durbin-watson';
 import { formatNumber as num, formatP } from '../format';
 import { bonferroniOutlierP, cookCutoff, lineInfluence, LineInfluence } from './influence';
 import { distinctUpToThree } from '../correlation/distinct';
@@ -342,8 +342,8 @@ function influenceRow(infl: LineInfluence, onLine: boolean, where: (i: number) =
 
 function rowOrderRow(x: ArrayLike<number>, fit: LineFit, onLine: boolean, alpha: number): CheckRow {
   const key = 'row-order';
-  const exact = fit.n < 100;
-  const test = `Durbin–Watson, one-sided, ${exact ? 'exact (Imhof)' : 'normal approximation'}`;
+  const exact = fit.n <= DW_EXACT_MAX;
+  const test = `Durbin–Watson, one-sided, ${exact ? 'exact' : 'saddle-point or Edgeworth approximation'}`;
   if (fit.n < MIN_FOR_RESIDUALS) return notTestable(key, test, tooFew(MIN_FOR_RESIDUALS));
   if (onLine) return notTestable(key, test, ON_LINE);
   return safely(key, test, () => {

@@ -4,6 +4,7 @@ import { assertVaries, clipUnit, pearsonFromMoments } from './pearson';
 import { PreparedPairs } from './prepared';
 import { fisherInterval, pFromT, pFromZ, tFromR } from './fisher';
 import { validTestOptions } from '../options';
+import { SPEARMAN_EDGEWORTH_MAX_N, spearmanTails } from './spearman-exact';
 import { CoefficientName, CorrelationResult, Interval, Method, StatsInputError, Tail, TestResult, TestStatistic } from '../types';
 
 export interface CorrelateOptions {
@@ -44,11 +45,77 @@ const INTERVAL_METHOD: Record<Method, string> = {
   kendall: 'Fisher z, SE = sqrt(0.437/(n - 4)) (Fieller, Hartley & Pearson 1957)',
 };
 
-/** The two-sided interval, or NaN bounds when n is too small for the method's standard error. */
+/**
+ * The two-sided interval, or NaN bounds with a note saying why: n too small for the method's standard error, or
+ * ranks that agree (or disagree) perfectly, where the Fisher-z interval of a rank coefficient would have zero
+ * width, which no sample of rankings can justify (the exact p-value still says how unlikely such agreement is).
+ */
 export function correlationInterval(method: Method, r: number, n: number, level: number): Interval {
   const se = fisherStandardError(method, r, n);
-  if (!Number.isFinite(se)) return { lower: NaN, upper: NaN, level, method: INTERVAL_METHOD[method] };
+  if (!Number.isFinite(se)) {
+    return { lower: NaN, upper: NaN, level, method: INTERVAL_METHOD[method], note: `an interval needs at least ${method === 'kendall' ? 5 : 4} pairs` };
+  }
+  if (method !== 'pearson' && Math.abs(r) === 1) {
+    return {
+      lower: NaN, upper: NaN, level, method: INTERVAL_METHOD[method],
+      note: `the ranks ${r > 0 ? 'agree' : 'disagree'} perfectly, so the rank interval would have zero width; no interval is given (the p-value is exact)`,
+    };
+  }
   return fisherInterval(r, se, level, INTERVAL_METHOD[method]);
+}
+
+/** +1 or -1 when the two rankings are identical or exactly reversed (rounding must not leave 0.9999999999999999), else null. */
+function perfectRanks(rx: Float64Array, ry: Float64Array): number | null {
+  const n = rx.length;
+  let same = true;
+  let reversed = true;
+  for (let i = 0; i < n && (same || reversed); i++) {
+    if (rx[i] !== ry[i]) same = false;
+    if (rx[i] !== n + 1 - ry[i]) reversed = false;
+  }
+  return same ? 1 : reversed ? -1 : null;
+}
+
+/** Sum of squared rank differences, and whether either column has ties (average ranks then lower the sum of squares). */
+function spearmanS(rx: Float64Array, ry: Float64Array): { s: number; ties: boolean } {
+  const n = rx.length;
+  let s = 0;
+  let qx = 0;
+  let qy = 0;
+  for (let i = 0; i < n; i++) {
+    const d = rx[i] - ry[i];
+    s += d * d;
+    qx += rx[i] * rx[i];
+    qy += ry[i] * ry[i];
+  }
+  // Without ties the ranks are 1..n, whose squares sum to n(n + 1)(2n + 1)/6; these sums are exact below 2^53.
+  const full = (n * (n + 1) * (2 * n + 1)) / 6;
+  return { s, ties: qx !== full || qy !== full };
+}
+
+/**
+ * Spearman's p-value: without ties and up to SPEARMAN_EDGEWORTH_MAX_N rows, from the null distribution of S
+ * (spearman-exact.ts; two-sided as twice the smaller tail, on the side of S's mean); otherwise the t approximation
+ * with n - 2 df.
+ */
+function spearmanPValue(prep: PreparedPairs, r: number, tail: Tail): { p: number; test: TestStatistic; pMethod: string } {
+  const n = prep.n;
+  if (n <= SPEARMAN_EDGEWORTH_MAX_N) {
+    const { s, ties } = spearmanS(prep.ranksX, prep.ranksY);
+    if (!ties) {
+      const t = spearmanTails(n, s);
+      const p = tail === 'positive' ? t.positive : tail === 'negative' ? t.negative : Math.min(1, 2 * (s > (n * n * n - n) / 6 ? t.negative : t.positive));
+      return { p, test: { name: 'S', value: s }, pMethod: t.method };
+    }
+  }
+  return { ...spearmanTApproximation(r, n, tail), pMethod: `t approximation, df = n - 2 (${n > SPEARMAN_EDGEWORTH_MAX_N ? `over ${SPEARMAN_EDGEWORTH_MAX_N} rows` : 'ties'})` };
+}
+
+/** Spearman's p by the t approximation t = rho sqrt((n - 2)/(1 - rho^2)), n - 2 df: used with ties or beyond 1,290 rows. */
+export function spearmanTApproximation(r: number, n: number, tail: Tail): { p: number; test: TestStatistic } {
+  const df = n - 2;
+  const t = tFromR(r, df);
+  return { p: pFromT(t, df, tail), test: { name: 't', value: t, df } };
 }
 
 /** Kendall's p-value: exact null distribution without ties for n < 50, else normal approximation of S. */
@@ -106,7 +173,7 @@ export function correlatePrepared(prep: PreparedPairs, opts: CorrelateOptions): 
     assertVaries(prep.moments);
     const m = prep.rankMoments;
     assertVaries(m);
-    r = pearsonFromMoments(m);
+    r = perfectRanks(prep.ranksX, prep.ranksY) ?? pearsonFromMoments(m);
     name = 'Spearman';
   } else {
     const m = prep.moments;
@@ -115,13 +182,17 @@ export function correlatePrepared(prep: PreparedPairs, opts: CorrelateOptions): 
     name = pearsonName(x, y);
   }
   r = clipUnit(r);
+  if (method === 'spearman') {
+    const pv = spearmanPValue(prep, r, tail);
+    return { method, name, statistic: r, pValue: pv.p, tail, interval: correlationInterval(method, r, n, level), n, test: pv.test, pMethod: pv.pMethod };
+  }
   const df = n - 2;
   const t = tFromR(r, df);
   return {
     method, name, statistic: r, pValue: pFromT(t, df, tail), tail,
     interval: correlationInterval(method, r, n, level), n,
     test: { name: 't', value: t, df },
-    pMethod: method === 'spearman' ? 't approximation, df = n - 2' : 't test, df = n - 2',
+    pMethod: 't test, df = n - 2',
   };
 }
 

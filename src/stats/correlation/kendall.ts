@@ -162,7 +162,8 @@ function sameAsPrevious(sorted: KeyedOrder, v: ArrayLike<number>): (i: number) =
 /** Kendall's tau-b = S / sqrt((n0 - n1)(n0 - n2)) (Kendall 1945, "The treatment of ties in ranking problems", Biometrika 33:239-251). */
 export function tauB(c: KendallCounts): number {
   const n0 = (c.n * (c.n - 1)) / 2;
-  const denom = Math.sqrt(n0 - c.tiedX) * Math.sqrt(n0 - c.tiedY);
+  // Equal tie counts (no ties at all, say) give the denominator exactly, so perfect agreement is exactly 1.
+  const denom = c.tiedX === c.tiedY ? n0 - c.tiedX : Math.sqrt(n0 - c.tiedX) * Math.sqrt(n0 - c.tiedY);
   const t = c.s / denom;
   return t > 1 ? 1 : t < -1 ? -1 : t;
 }

@@ -1,12 +1,19 @@
 /**
- * Durbin-Watson against R 4.2.2 lmtest 0.9.40 dwtest (statistic; p exact by Pan's procedure for n < 100, normal
- * approximation with exact moments otherwise) and an independent evaluation of Imhof's formula in R with eigen()
- * and integrate() (checks-r.json, checks-r.R). Building blocks checked against closed forms.
+ * Durbin-Watson against outside references:
+ * - R 4.2.2 lmtest 0.9.40 dwtest (statistic; p by Pan's procedure for n < 100, its normal approximation with exact
+ *   moments otherwise) and an independent evaluation of Imhof's formula in R with eigen() and integrate()
+ *   (test/fixtures/checks/checks-r.R, checks-r.json);
+ * - the exact tails at 50+ digits with mpmath, down to 1e-75 (test/fixtures/verdict/durbin-watson-mpmath.py, .json),
+ *   to relative 1e-9;
+ * - the spectrum of M A by LAPACK through R's eigen() (test/fixtures/checks/dw-spectrum-r.R, .json).
+ * Building blocks checked against closed forms.
  */
-import { durbinWatson } from '../../../../src/stats/checks/durbin-watson';
-import { quadraticFormTails } from '../../../../src/stats/checks/imhof';
+import * as fs from 'fs';
+import * as path from 'path';
+import { centredUnit, durbinWatson, DW_EXACT_MAX, dwEdgeworthTails, dwNormalApproximation, dwSaddlepointTails } from '../../../../src/stats/checks/durbin-watson';
+import { residualSpaceSpectrum } from '../../../../src/stats/checks/dw-spectrum';
+import { quadraticFormTails } from '../../../../src/stats/checks/quadratic-form';
 import { integrate } from '../../../../src/stats/internal/quadrature';
-import { symmetricEigenvalues } from '../../../../src/stats/internal/symmetric-eigenvalues';
 import { fitLine } from '../../../../src/stats/correlation/regression';
 import { expectRel } from '../../../helpers/close';
 import { R, RChecks } from './fixtures';
@@ -15,8 +22,8 @@ import { simulate } from './simulated-data';
 function check(x: ArrayLike<number>, y: ArrayLike<number>, ref: RChecks): void {
   const r = durbinWatson(x, fitLine(x, y).residuals);
   expectRel(r.statistic, ref.dw.statistic, 1e-10, 'DW');
+  expect(r.method).toMatch(ref.n <= DW_EXACT_MAX ? /exact/ : /Edgeworth|saddle-point approximation/);
   if (ref.n < 100) {
-    expect(r.method).toMatch(/exact/);
     // Imhof in R (QUADPACK, LAPACK): agreement to the integration tolerance.
     expectRel(r.pPositive, ref.dw.imhof_below!, 1e-9, 'P(DW <= d), R Imhof');
     expectRel(r.pNegative, ref.dw.imhof_above!, 1e-9, 'P(DW >= d), R Imhof');
@@ -27,10 +34,10 @@ function check(x: ArrayLike<number>, y: ArrayLike<number>, ref: RChecks): void {
       expect(Math.abs(r.pNegative - ref.dw.p_less)).toBeLessThan(1e-4);
     }
   } else {
-    expect(r.method).toMatch(/normal approximation/);
-    expectRel(r.pPositive, ref.dw.p_greater, 1e-9, 'greater');
-    expectRel(r.pNegative, ref.dw.p_less, 1e-9, 'less');
-    if (ref.dw.p_two_sided > 0) expectRel(r.pValue, ref.dw.p_two_sided, 1e-9, 'two-sided');
+    // From 100 rows lmtest gives its normal approximation with the exact mean and variance: the same moments here.
+    const na = dwNormalApproximation(centredUnit(x), r.statistic);
+    expectRel(na.below, ref.dw.p_greater, 1e-9, 'greater');
+    expectRel(na.above, ref.dw.p_less, 1e-9, 'less');
   }
 }
 
@@ -54,7 +61,7 @@ describe('Durbin-Watson', () => {
     expectRel(durbinWatson(x, fitLine(x, y).residuals).pPositive, s.dw.imhof_below!, 1e-9);
   });
 
-  test('AR(1) rows (rho = 0.6) are found: n = 99 exact, n = 100 approximate', () => {
+  test('AR(1) rows (rho = 0.6) are found at n = 99 and n = 100 (both exact)', () => {
     for (const n of [99, 100]) {
       const { x, y } = simulate('ar1', n);
       expect(durbinWatson(x, fitLine(x, y).residuals).pPositive).toBeLessThan(1e-5);
@@ -68,21 +75,16 @@ describe('Durbin-Watson', () => {
 });
 
 describe('building blocks', () => {
-  test('eigenvalues of the first-difference matrix A are 2 - 2 cos(pi j / n) (Durbin & Watson 1950, sec. 4)', () => {
-    const n = 12;
-    const a = new Float64Array(n * n);
-    for (let i = 0; i < n; i++) {
-      a[i * n + i] = i === 0 || i === n - 1 ? 1 : 2;
-      if (i + 1 < n) a[i * n + i + 1] = a[(i + 1) * n + i] = -1;
-    }
-    const ev = symmetricEigenvalues(a, n);
-    for (let j = 0; j < n; j++) {
-      const expected = 2 - 2 * Math.cos((Math.PI * (n - 1 - j)) / n);
-      expect(Math.abs(ev[j] - expected)).toBeLessThan(1e-13);
-    }
+  const SPEC = JSON.parse(fs.readFileSync(path.resolve(__dirname, '../../../fixtures/checks/dw-spectrum-r.json'), 'utf8'));
+  type SpectrumCase = { label: string; x: number[]; eigenvalues: number[] };
+  test.each((SPEC.cases as SpectrumCase[]).map((c) => [c.label, c] as const))('the spectrum of M A equals R eigen(): %s', (_label, c) => {
+    const { x, eigenvalues } = c;
+    const m = residualSpaceSpectrum(centredUnit(x));
+    expect(m.length).toBe(eigenvalues.length);
+    eigenvalues.forEach((e, j) => expect(Math.abs(m[j] - e)).toBeLessThan(1e-12));
   });
 
-  test('Imhof: z1^2 - a z2^2 < 0 has probability (2/pi) atan(sqrt(a)) (the ratio of two normals is Cauchy)', () => {
+  test('Saddle-point inversion: z1^2 - a z2^2 < 0 has probability (2/pi) atan(sqrt(a)) (the ratio of two normals is Cauchy)', () => {
     for (const a of [0.1, 1, 3, 50]) {
       const t = quadraticFormTails([1, -a]);
       expectRel(t.below, (2 / Math.PI) * Math.atan(Math.sqrt(a)), 1e-10, `a = ${a}`);
@@ -90,7 +92,7 @@ describe('building blocks', () => {
     }
   });
 
-  test('Imhof: P(chi2(4) < chi2(2)) = P(Beta(2, 1) < 1/2) = 0.25 (weights 1, 1, 1, 1, -1, -1)', () => {
+  test('Saddle-point inversion: P(chi2(4) < chi2(2)) = P(Beta(2, 1) < 1/2) = 0.25 (weights 1, 1, 1, 1, -1, -1)', () => {
     const t = quadraticFormTails([1, 1, 1, 1, -1, -1]);
     expectRel(t.below, 0.25, 1e-10);
   });
@@ -98,5 +100,46 @@ describe('building blocks', () => {
   test('Gauss-Kronrod integration', () => {
     expectRel(integrate((t) => Math.exp(-t), 0, 30, { absTol: 1e-13, relTol: 0 }), 1 - Math.exp(-30), 1e-13);
     expectRel(integrate((t) => 1 / Math.sqrt(t), 0, 1, { absTol: 1e-10, relTol: 0, maxPieces: 2000 }), 2, 1e-8);
+  });
+});
+
+describe('exact tails in relative terms (mpmath at 50+ digits, test/fixtures/verdict/durbin-watson-mpmath.py)', () => {
+  const MP = JSON.parse(fs.readFileSync(path.resolve(__dirname, '../../../fixtures/verdict/durbin-watson-mpmath.json'), 'utf8'));
+  type Case = { n: number; x: string[]; y: string[]; d: string; lower: string; upper: string };
+  test('the fixture reaches below 1e-20 and 1e-60', () => {
+    const smallest = Math.min(...(MP.cases as Case[]).map((c) => Number(c.lower)));
+    expect(smallest).toBeLessThan(1e-60);
+    expect((MP.cases as Case[]).some((c) => c.n === 98 && Number(c.lower) < 1e-20)).toBe(true);
+  });
+  test.each((MP.cases as Case[]).map((c, i) => [i, c.n, Number(c.lower), c] as const))('case %i, n = %i, P(DW <= d) = %e', (_i, _n, _p, c) => {
+    const x = c.x.map(Number);
+    const y = c.y.map(Number);
+    const r = durbinWatson(x, fitLine(x, y).residuals);
+    expectRel(r.statistic, Number(c.d), 1e-12, 'd');
+    expectRel(r.pPositive, Number(c.lower), 1e-9, 'lower');
+    if (Number(c.upper) < 1) expectRel(r.pNegative, Number(c.upper), 1e-9, 'upper');
+  });
+});
+
+describe('above the exact range: no jump where the method changes', () => {
+  // At n = DW_EXACT_MAX both methods are evaluated on the same x: the series (with the saddle point for small
+  // tails) against the exact distribution, whose accuracy is held against mpmath above.
+  const n = DW_EXACT_MAX;
+  let seed = 5;
+  const u = () => ((seed = (Math.imul(seed, 1664525) + 1013904223) >>> 0) + 0.5) / 4294967296;
+  const x = Array.from({ length: n }, (_, i) => i + 3 * u());
+  const c = centredUnit(x);
+  const m = residualSpaceSpectrum(c);
+  test.each([1.2, 1.5, 1.7, 1.8, 1.85, 1.9, 1.95, 2.05, 2.1, 2.2, 2.4, 2.8])('d = %d: within 1%% of the exact tails', (d) => {
+    const exact = quadraticFormTails(Array.from(m, (v) => v - d));
+    const small = Math.min(exact.below, exact.above);
+    const approx = small < 1e-3 ? dwSaddlepointTails(c, d) : dwEdgeworthTails(c, d);
+    const rel = (a: number, b: number) => Math.abs(a - b) / b;
+    expect(rel(exact.below < exact.above ? approx.below : approx.above, small)).toBeLessThan(0.01);
+  });
+  test('the method in use above the exact range says which it is', () => {
+    const y = x.map((v, i) => 0.5 * v + Math.sin(i / 3));
+    const big = [...x, x[n - 1] + 1];
+    expect(durbinWatson(big, fitLine(big, [...y, y[n - 1]]).residuals).method).toMatch(/Edgeworth|saddle-point approximation/);
   });
 });

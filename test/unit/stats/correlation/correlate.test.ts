@@ -5,7 +5,7 @@
  * - scipy 1.10.1 spearmanr / kendalltau on the same datasets (scipy-spearman.json, make-fixture-scipy.py);
  * - published values collected in test/references.md, named beside each check.
  */
-import { checkReported, correlate } from '../../../../src/stats/correlation/correlate';
+import { checkReported, correlate, spearmanTApproximation } from '../../../../src/stats/correlation/correlate';
 import { fitLine } from '../../../../src/stats/correlation/regression';
 import { Method, Tail } from '../../../../src/stats/types';
 import { expectRel } from '../../../helpers/close';
@@ -75,7 +75,10 @@ describe.each(sFix.cases.map((c) => [c.name, c] as [string, Record<string, numbe
   test.each(TAILS)('Spearman p-value (t approximation), tail %s', (tail) => {
     const res = run(c.x as number[], c.y as number[], 'spearman', tail);
     expectRel(res.statistic, s.spearman_rho as number, 1e-9, 'rho');
-    expectRel(res.pValue, s[`spearman_p_${S_ALT[tail]}`] as number, 1e-6, 'p');
+    // The t approximation is what Covary uses with ties or beyond 1,290 rows; without ties below that it uses the
+    // null distribution of S (held against R in spearman-exact.test.ts), so here the approximation is checked itself.
+    expectRel(spearmanTApproximation(res.statistic, res.n, tail).p, s[`spearman_p_${S_ALT[tail]}`] as number, 1e-6, 'p');
+    if (/t approximation/.test(res.pMethod)) expectRel(res.pValue, s[`spearman_p_${S_ALT[tail]}`] as number, 1e-6, 'p as used');
   });
   test('Kendall tau-b (kendalltau variant b)', () => {
     expectRel(run(c.x as number[], c.y as number[], 'kendall').statistic, s.kendall_tau_b as number, 1e-9, 'tau-b');
@@ -101,10 +104,14 @@ describe('published values (test/references.md)', () => {
     expectRel(run(hwX, hwY, 'kendall', 'positive').pValue, 0.0597194664903, 1e-10);
   });
 
-  test('Spearman rho = 0.6, t-approximation p = 0.08762 (test/references.md)', () => {
+  test('Spearman rho = 0.6, t-approximation p = 0.08762 (test/references.md); exact p as R cor.test', () => {
     const res = run(hwX, hwY, 'spearman');
     expectRel(res.statistic, 0.6, 1e-12);
-    expect(res.pValue).toBeCloseTo(0.08762, 5);
+    expect(spearmanTApproximation(res.statistic, 9, 'both').p).toBeCloseTo(0.08762, 5);
+    // R 4.2.2: cor.test(x, y, method = "spearman", alternative = a)$p.value (no ties, n = 9: exact enumeration),
+    // recorded in test/references.md: 0.096797839506172836 (two-sided), 0.048398919753086418 (greater).
+    expectRel(res.pValue, 0.096797839506172836, 1e-12);
+    expectRel(run(hwX, hwY, 'spearman', 'positive').pValue, 0.048398919753086418, 1e-12);
   });
 
   test('scipy pearsonr docstring: r, p, 90% CI', () => {
