@@ -7,17 +7,19 @@
  * Statistics use every row; only the drawing is thinned (see draw-sample.ts).
  */
 import { sheetRowNaming } from '../src/sheet/naming';
-import { recommendCoefficient, Recommendation } from '../src/stats/checks/advice';
+import { readCorrelation, Recommendation } from '../src/stats/verdict/advice';
+import { conclude } from '../src/stats/verdict/conclusion';
+import type { SensitivityRow, Summary } from '../src/stats/verdict/sensitivity';
+import type { Direction } from '../src/stats/checks/verdict';
+import { formatR } from '../src/stats/format';
 import type { CheckRow } from '../src/stats/checks/check-report';
 import { checksOf } from '../src/stats/checks/checked';
-import { correlatePrepared } from '../src/stats/correlation/correlate';
 import { PreparedPairs } from '../src/stats/correlation/prepared';
 import { lowess } from '../src/stats/plots/lowess';
 import { normalScores, quartileLine } from '../src/stats/plots/qq';
 import { CorrelationResult, Method, StatsInputError } from '../src/stats/types';
 import { drawSample } from './draw-sample';
 import { pairedRows, PairedRows } from './pairs';
-import { readCorrelation } from './reading';
 
 export interface RelationshipOptions {
   method: Method;
@@ -77,8 +79,27 @@ export interface RelationshipView {
   reading: string[];
   /** Which coefficient to report given the checks, and why (the same advice as COVARY.REPORT). */
   recommendation: Recommendation;
+  /** Whether the conclusion holds (the same as COVARY.SENSITIVITY and the verdict rows of COVARY.REPORT). */
+  verdict: VerdictView;
   /** Milliseconds spent computing (not drawing). */
   computeMs: number;
+}
+
+/** The verdict card's content: plain data, so it crosses to and from the panel's worker. */
+export interface VerdictView {
+  summary: Summary;
+  line: string;
+  rows: SensitivityRow[];
+  direction: Direction;
+  /** When the interval includes zero: the equivalence test at the default bound. */
+  equivalence: { bound: number; negligible: boolean; pValue: number; lower: number; upper: number; level: number } | null;
+  /** When the interval includes zero: the Bayes factor for Pearson's r (uniform prior, even odds). */
+  bayes: { bf01: number; bf10: number; posteriorProbability: number } | null;
+  /** The smallest correlation these rows detect 8 times in 10 at the interval's alpha. */
+  detectable: number | null;
+  /** Slight departures, and checks that had too few rows to tell. */
+  minor: string[];
+  tooFew: number;
 }
 
 /** A computation that could not run, with a message for the user. */
@@ -163,8 +184,10 @@ export function analyseRelationship(p: PairedRows, opts: RelationshipOptions, me
   const prepared = new PreparedPairs(x, y);
   try {
     const n = x.length;
-    const correlation = correlatePrepared(prepared, { method: opts.method, tail: 'both', level: opts.level });
-    const report = checksOf(prepared, opts.alpha, sheetRowNaming(rows));
+    const naming = sheetRowNaming(rows);
+    const report = checksOf(prepared, opts.alpha, naming);
+    const conclusion = conclude(prepared, report, { method: opts.method, level: opts.level, name: naming.name });
+    const correlation = conclusion.correlation;
     const pts = report.points;
     const qqLine = quartileLine(pts.residuals);
 
@@ -220,8 +243,21 @@ export function analyseRelationship(p: PairedRows, opts: RelationshipOptions, me
       drawn,
       smooth,
       qqLine,
-      reading: readCorrelation(correlation, p.xHeader, p.yHeader),
-      recommendation: recommendCoefficient(report, correlation),
+      reading: readCorrelation(correlation, p.xHeader, p.yHeader, formatR),
+      recommendation: conclusion.recommendation,
+      verdict: {
+        summary: conclusion.sensitivity.summary,
+        line: conclusion.sensitivity.line,
+        rows: conclusion.sensitivity.rows,
+        direction: conclusion.sensitivity.direction,
+        equivalence: conclusion.equivalence
+          ? { bound: conclusion.equivalence.bound, negligible: conclusion.equivalence.negligible, pValue: conclusion.equivalence.pValue, lower: conclusion.equivalence.interval.lower, upper: conclusion.equivalence.interval.upper, level: conclusion.equivalence.interval.level }
+          : null,
+        bayes: conclusion.bayes ? { bf01: conclusion.bayes.bf01, bf10: conclusion.bayes.bf10, posteriorProbability: conclusion.bayes.posteriorProbability } : null,
+        detectable: conclusion.detectable,
+        minor: report.minor,
+        tooFew: report.tooFew,
+      },
       computeMs: now() - t0,
     };
   } catch (e) {

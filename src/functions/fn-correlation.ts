@@ -5,7 +5,8 @@
 import { checkReported, correlatePrepared } from '../stats/correlation/correlate';
 import { CellRange } from '../sheet/cells';
 import { CorrelationResult, StatsInputError } from '../stats/types';
-import { optLevel, optMethod, optTail, requiredNumber } from './args';
+import { testAgainst } from '../stats/correlation/benchmark';
+import { optLevel, optMethod, optNumber, optTail, requiredNumber } from './args';
 import { guard } from './errors';
 import { requirePairs } from './read';
 import { sharedPairs } from './shared-pairs';
@@ -43,23 +44,30 @@ export function INTERVAL(x: any[][], y: any[][], level?: number, method?: string
     const res = run(x, y, method, null, level);
     if (!Number.isFinite(res.interval.lower)) {
       const need = res.method === 'kendall' ? 5 : 4;
-      throw new StatsInputError('too-few', `only ${res.n} usable pairs: an interval needs at least ${need}`);
+      if (res.n < need) throw new StatsInputError('too-few', `only ${res.n} usable pairs: an interval needs at least ${need}`);
+      throw new StatsInputError('too-few', `no interval: ${res.interval.note ?? 'the data give none'}`);
     }
     return [[res.interval.lower, res.interval.upper]];
   });
 }
 
 /**
- * The p-value for the correlation between two columns: how often data at least this far from "no correlation" would turn up by chance if the true correlation were zero.
+ * The p-value for the correlation between two columns: how often data at least this far from "no correlation" (or from the benchmark given as against) would turn up by chance if the true correlation were that value.
  * @customfunction PVALUE
  * @param x First column (or row) of numbers.
  * @param y Second column (or row) of numbers, the same size as x.
- * @param [tail] "both" (default: any correlation), "positive" (only a positive correlation counts) or "negative".
+ * @param [tail] "both" (default: any difference), "positive" (only a correlation above the benchmark counts) or "negative".
  * @param [method] "pearson" (default), "spearman" or "kendall".
+ * @param [against] The correlation to test against, strictly between -1 and 1; default 0. Other values use Fisher's z test (for example 0.3 asks whether the correlation really exceeds a reported .30).
  * @returns The p-value, between 0 and 1.
  */
-export function PVALUE(x: any[][], y: any[][], tail?: string, method?: string): number {
-  return guard(() => run(x, y, method, tail, null).pValue);
+export function PVALUE(x: any[][], y: any[][], tail?: string, method?: string, against?: number): number {
+  return guard(() => {
+    const rho0 = optNumber(against, 0, 'against');
+    const res = run(x, y, method, tail, null);
+    if (rho0 === 0) return res.pValue;
+    return testAgainst(res.statistic, res.n, res.method, rho0, res.tail).pValue;
+  });
 }
 
 /**
@@ -81,13 +89,16 @@ export function PAIRS(x: any[][], y: any[][]): number {
  * @param [level] Confidence level between 0 and 1, default 0.95.
  * @param [tail] "both" (default), "positive" or "negative".
  * @param [method] Which coefficient was reported: "pearson" (default), "spearman" or "kendall".
+ * @param [against] The correlation the p-value tests against, strictly between -1 and 1; default 0 (Fisher's z test for other values).
  * @returns One row: lower bound, upper bound, p-value.
  */
-export function REPORTED(r: number, n: number, level?: number, tail?: string, method?: string): number[][] {
+export function REPORTED(r: number, n: number, level?: number, tail?: string, method?: string, against?: number): number[][] {
   return guard(() => {
+    const rho0 = optNumber(against, 0, 'against');
     const res = checkReported(requiredNumber(r, 'r'), requiredNumber(n, 'n'), {
       method: optMethod(method), tail: optTail(tail), level: optLevel(level),
     });
-    return [[res.interval.lower, res.interval.upper, res.pValue]];
+    const p = rho0 === 0 ? res.pValue : testAgainst(res.statistic, res.n, res.method, rho0, res.tail).pValue;
+    return [[res.interval.lower, res.interval.upper, p]];
   });
 }

@@ -9,3 +9,4 @@ import './fn-correlation';
 import './fn-checks';
 import './fn-compare';
 import './fn-planning';
+import './fn-evidence';

@@ -28,12 +28,28 @@ export function formatP(p: number): string {
   return `p = ${String(Number(p.toPrecision(2)))}`;
 }
 
+/**
+ * A correlation in a sentence: three significant digits, but never so few that a value short of +/-1 reads as
+ * exactly 1 (0.99996 reads "0.99996", not "1").
+ * @example formatCorrelation(0.816) // "0.816"
+ */
+export function formatCorrelation(v: number): string {
+  if (!Number.isFinite(v)) return formatNumber(v);
+  if (Math.abs(v) === 1 || Math.abs(v) < 0.99) return formatNumber(v);
+  let digits = 3;
+  let s = String(Number(v.toPrecision(digits)));
+  while (Math.abs(Number(s)) === 1 && digits < 17) s = String(Number(v.toPrecision(++digits)));
+  return s;
+}
+
 /** r, an interval bound or a difference, two decimals with a true minus sign; "–" when there is none. */
 export function formatR(r: number): string {
   if (!Number.isFinite(r)) return '–';
   let s = r.toFixed(2);
   // Keep the sign visible when two decimals would round a small value to zero (an interval bound just below 0).
   if (r !== 0 && Math.abs(r) < 0.005) s = r.toFixed(3);
+  // And never show a value short of +/-1 as 1.00 (an upper bound of 0.996 is not "perfect is possible").
+  for (let d = 3; Math.abs(r) < 1 && Math.abs(Number(s)) === 1 && d <= 12; d++) s = r.toFixed(d);
   return s.replace('-', '−');
 }
 

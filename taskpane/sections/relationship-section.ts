@@ -12,6 +12,7 @@ import { PANEL_TEST_IDS } from '../panel-api';
 import { RelationshipView } from '../relationship';
 import { chartBox, legend, section, showMessage, tile, Tile } from '../widgets';
 import { describer, markFrame, pointsOf } from './plot-points';
+import { VerdictCard } from './verdict-card';
 
 const LEVEL_OPTIONS = [
   { value: '0.9', label: '90%' },
@@ -41,6 +42,7 @@ export class RelationshipSection {
   private readonly flags: HTMLElement;
   private readonly flaggedRows: HTMLElement;
   private readonly checksBody: HTMLElement;
+  private readonly verdict = new VerdictCard();
 
   /**
    * @param picker the pair picker's element, placed at the top
@@ -74,6 +76,7 @@ export class RelationshipSection {
     ]);
     // Results stay hidden until there is something to show (no empty charts).
     this.results = el('div', { class: 'cv-results cv-hidden' }, [
+      this.verdict.root,
       el('div', { class: 'cv-tiles' }, [this.tiles.r.root, this.tiles.interval.root, this.tiles.p.root, this.tiles.pairs.root]),
       scatter.root,
       legend(),
@@ -125,11 +128,20 @@ export class RelationshipSection {
     tiles.pairs.value.textContent = v.skipped > 0 ? `${formatCount(v.n)} (${formatCount(v.skipped)} skipped)` : formatCount(v.n);
     tiles.pairs.value.setAttribute('data-value', String(v.n));
 
+    this.verdict.render(v.verdict, v.n, c.interval.level);
     fill(this.reading, v.reading.map((t) => el('li', { text: t })));
     this.renderAdvice(v);
 
-    if (v.flags.length === 0) fill(this.flags, [el('span', { class: 'cv-chip cv-chip-ok', text: 'No flags: the checks found nothing to worry about' })]);
-    else fill(this.flags, v.flags.map((f) => el('span', { class: 'cv-chip cv-chip-flag', text: f })));
+    // Never "nothing to worry about" when the checks could not see: say how many could not tell.
+    const blind = v.verdict.tooFew + v.checks.filter((k) => k.verdict === 'not testable').length;
+    const chips: HTMLElement[] = v.flags.map((f) => el('span', { class: 'cv-chip cv-chip-flag', text: f }));
+    for (const m of v.verdict.minor) chips.push(el('span', { class: 'cv-chip cv-chip-slight', text: `slight: ${m}` }));
+    if (v.flags.length === 0) {
+      chips.unshift(blind > 0
+        ? el('span', { class: 'cv-chip cv-chip-unknown', text: `No problems found, but ${blind} of the eight checks could not tell with ${v.n} rows` })
+        : el('span', { class: 'cv-chip cv-chip-ok', text: 'No problems found: the checks could have seen one' }));
+    }
+    fill(this.flags, chips);
 
     const shown = v.flaggedRows.slice(0, 20);
     fill(this.flaggedRows, shown.length === 0 ? [] : [
@@ -142,13 +154,13 @@ export class RelationshipSection {
       v.flaggedRows.length > shown.length ? el('span', { class: 'cv-muted', text: ` and ${v.flaggedRows.length - shown.length} more` }) : null,
     ]);
 
-    fill(this.checksBody, v.checks.map((row) => el('tr', { class: `cv-verdict-${row.verdict.replace(' ', '-')}` }, [
+    fill(this.checksBody, v.checks.map((row) => el('tr', { class: `cv-verdict-${row.verdict.replace(/ /g, '-')}` }, [
       el('th', { attrs: { scope: 'row' } }, [
         el('div', { text: row.label }),
         el('div', { class: 'cv-meaning', text: row.meaning }),
         el('div', { class: 'cv-test', text: row.test }),
       ]),
-      el('td', {}, [el('span', { class: `cv-badge cv-badge-${row.verdict.replace(' ', '-')}`, text: row.verdict === 'ok' ? 'ok' : row.verdict === 'flag' ? 'flag' : 'n/a' })]),
+      el('td', {}, [el('span', { class: `cv-badge cv-badge-${row.verdict.replace(/ /g, '-')}`, text: row.verdict })]),
       el('td', { class: 'cv-num', text: row.pValue === null ? '–' : formatPValue(row.pValue) }),
     ])));
 

@@ -1,7 +1,8 @@
 /**
  * Preview page for the panel on an in-memory workbook (no Office, no workbench): used to take screenshots and
  * to time redraws. The scenario comes from the URL hash: #demo (default), #markup (a header holding markup),
- * #rows=100000 (a large column pair for timing), #empty (nothing picked yet), #constant (a column that does not vary).
+ * #rows=100000 (a large column pair for timing), #empty (nothing picked yet), #constant (a column that does not vary),
+ * #few (five rows), #null (48 rows with no relationship).
  *
  * Demo data: an invented chain of bakeries, "Juniper Lane Bakeries"; every number is generated here.
  */
@@ -34,8 +35,8 @@ function branchSheet(rand: () => number, rows: number, slope: number, outlier: b
     const rating = Math.round((3.6 + 0.02 * (loaves - 220) / 10 + 0.4 * normal(rand)) * 10) / 10;
     grid.push([`Branch ${i + 1}`, hours, loaves, rating]);
   }
-  if (outlier) grid[12][2] = 520;
-  grid[7][3] = ''; // one missing rating: skipped pairwise
+  if (outlier && grid.length > 12) grid[12][2] = 520;
+  if (grid.length > 7) grid[7][3] = ''; // one missing rating: skipped pairwise
   return grid;
 }
 
@@ -87,11 +88,12 @@ if (hash.startsWith('rows=')) {
   mountPanel(root, wb, { workerUrl: 'panel-worker.js' });
 } else {
   const markup = hash === 'markup';
-  wb.sheets.set('North', branchSheet(rand, 40, 1.9, true, markup ? '<img src=x onerror=alert(1)>' : 'Oven hours'));
+  const north = hash === 'few' ? branchSheet(rand, 5, 1.9, false) : hash === 'null' ? branchSheet(rand, 48, 0, false) : branchSheet(rand, 40, 1.9, true, markup ? '<img src=x onerror=alert(1)>' : 'Oven hours');
+  wb.sheets.set('North', north);
   wb.sheets.set('South', branchSheet(rand, 36, 1.2, false));
   wb.tables.push({ name: 'NorthBranches', sheet: 'North', headerRow: 1, firstColumn: 1, columns: wb.sheets.get('North')![0] as string[] });
   wb.tables.push({ name: 'SouthBranches', sheet: 'South', headerRow: 1, firstColumn: 1, columns: wb.sheets.get('South')![0] as string[] });
-  wb.selection = 'North!B1:C41';
+  wb.selection = `North!B1:C${north.length}`;
   mountPanel(root, wb, {
     initial: { x: { kind: 'table', table: 'NorthBranches', column: markup ? '<img src=x onerror=alert(1)>' : 'Oven hours' }, y: { kind: 'table', table: 'NorthBranches', column: 'Loaves sold' } },
     initialCompare: { x: { kind: 'range', address: 'South!B1:B37' }, y: { kind: 'range', address: 'South!C1:C37' } },

@@ -1,7 +1,18 @@
 /** Shared shapes of the assumption checks: one object per (x, y), read by the cell functions and the panel. */
+import type { EffectiveRows } from '../correlation/effective-n';
+import type { Verdict } from './verdict';
 
-/** A check's outcome: "ok" (no sign of trouble), "flag" (trouble found), "not testable" (with its reason). */
-export type Verdict = 'ok' | 'flag' | 'not testable';
+export type { Verdict } from './verdict';
+
+/** How large a departure is, in the check's own terms (the verdict weighs it against the check's threshold). */
+export interface CheckEffect {
+  /** What is measured, e.g. "shape", "curve", "spread ratio", "change in r", "effective rows". */
+  label: string;
+  /** The number the verdict compares with its threshold. */
+  value: number;
+  /** The effect in words with its figures, e.g. "skewness 4.22, excess kurtosis 21.4". */
+  text: string;
+}
 
 /** The eight checks, always in this order. */
 export type CheckKey =
@@ -36,12 +47,19 @@ export interface CheckRow {
   statistic: number | null;
   /** The p-value, or null when the check has none (Cook's distance, leverage) or did not run. */
   pValue: number | null;
+  /** What the departure does to the conclusion at this n: see verdict.ts. */
   verdict: Verdict;
+  /** Whether the test found a departure at alpha (Cook's distance: above its cut-off); null when it did not run. */
+  detected: boolean | null;
+  /** How large the departure is, or null when the check did not run. */
+  effect: CheckEffect | null;
+  /** The rule the verdict applied and where it comes from. */
+  threshold: string;
   /** One plain sentence saying what the result means for the correlation (or why the check could not run). */
   meaning: string;
   /** Why the check could not run; present only when verdict is "not testable". */
   reason?: string;
-  /** A few words for the list of raised flags, e.g. "curved"; present only when verdict is "flag". */
+  /** A few words for the lists of problems and slight departures, e.g. "curved"; present for those verdicts. */
   flag?: string;
   /** The point (0-based index into the pairs) the row is about: the outlier row and the influence row. */
   point?: number;
@@ -83,9 +101,17 @@ export interface CheckReport {
   line: { slope: number; intercept: number; rss: number };
   /** Exactly eight rows, in CHECK_KEYS order. */
   checks: CheckRow[];
-  /** The flag words of the flagged rows, in row order (empty when nothing was flagged). */
+  /** The flag words of the checks judged a problem, in row order (empty when none is). */
   flags: string[];
+  /** The flag words of the checks that found a slight departure (present, harmless at this n). */
+  minor: string[];
+  /** How many checks had too few rows to tell. */
+  tooFew: number;
   /** How many rows are not testable. */
   notTestable: number;
+  /** Pearson's r of all rows and without its most influential row (the largest change), by sheet position. */
+  leaveOneOut: { r: number; most: number; rWithoutMost: number } | null;
+  /** Effective rows when neighbouring rows are alike (Pyper & Peterman 1998), from x and y in row order. */
+  effectiveRows: EffectiveRows | null;
   points: PointDiagnostics;
 }

@@ -1,6 +1,15 @@
-import { CorrelationResult, Method, METHOD_LABELS } from '../types';
-import { CheckKey, CheckReport } from './check-report';
+/**
+ * What to report and why, and the plain reading of a correlation: the words the cell functions (REPORT) and the
+ * panel share. Built on the checks' verdicts (src/stats/checks/verdict.ts): a departure that is present but
+ * harmless at this n does not change the advice, and a check that could not see (too few rows) never lets the
+ * advice say the coefficient can be read as it stands.
+ */
+import type { CheckKey, CheckReport, CheckRow } from '../checks/check-report';
 import { formatNumber as num } from '../format';
+import { CorrelationResult, Method, METHOD_LABELS } from '../types';
+
+/** The remedy an advice names, for the panel's buttons and the tests. */
+export type Remedy = 'check-row' | 'collect-across-x' | 'rank' | 'effective-rows' | 'log' | 'more-rows' | null;
 
 /** What to report instead (or as well), and why. */
 export interface Recommendation {
@@ -10,8 +19,10 @@ export interface Recommendation {
   method: Method | null;
   /** True when the recommendation differs from the coefficient that was computed. */
   changed: boolean;
-  /** Why, in one or two plain sentences. */
+  /** Why, in one or two plain sentences, naming the remedy. */
   reason: string;
+  /** The main remedy named, if any. */
+  remedy: Remedy;
 }
 
 /** Cohen's (1988) words for the size of a correlation: .1 small, .3 medium, .5 large. */
@@ -35,122 +46,17 @@ export function strengthWord(r: number): StrengthWord {
 
 /**
  * Kendall's tau on the scale of r: r = sin(pi tau / 2), exact for bivariate normal data (Greiner 1909; Kendall
- * 1970, Rank Correlation Methods, 4th ed.). Used only to choose a strength word for tau, which runs
- * smaller than r for the same association.
+ * 1970, Rank Correlation Methods, 4th ed.). Used to choose a strength word for tau, which runs smaller than r for
+ * the same association, so that Cohen's words keep their meaning.
  */
 export function tauOnRScale(tau: number): number {
   return Math.sin((Math.PI * tau) / 2);
 }
 
-/** Fewer pairs than this: prefer Kendall's tau-b to Spearman's rho (common applied advice, not a theorem: its
- * null distribution nears the normal sooner and it handles ties more gracefully). */
-const KENDALL_BELOW_N = 25;
-
-function flagged(report: CheckReport, key: CheckKey): boolean {
-  return report.checks.some((c) => c.key === key && c.verdict === 'flag');
-}
-
-function rowOf(report: CheckReport, key: CheckKey) {
-  return report.checks.find((c) => c.key === key)!;
-}
-
-/** "a, b and c". */
-function listWords(items: string[]): string {
-  if (items.length <= 1) return items.join('');
-  return `${items.slice(0, -1).join(', ')} and ${items[items.length - 1]}`;
-}
-
-/**
- * Which coefficient to report, given what the checks found (the usual guidance of applied texts, e.g. Wilcox 2017,
- * Introduction to Robust Estimation and Hypothesis Testing, ch. 9: rank coefficients resist single points and need
- * no normal shape; none of the three repairs dependence between rows or a curve that turns back):
- * - one point sets the slope: none is reliable; gather data across x;
- * - a curve: a rank coefficient, which follows any steadily rising or falling pattern (a curve comes before the
- *   flags below, which a misfitting straight line produces by itself);
- * - outliers, influential points or a non-normal shape: a rank coefficient;
- * - (a rank coefficient is Kendall's tau-b below 25 pairs, Spearman's rho otherwise; a rank coefficient already
- *   chosen is kept);
- * - uneven spread alone: keep the coefficient, but its p-value and interval are approximate;
- * - neighbouring rows alike: a caution added to any of the above.
- */
-export function recommendCoefficient(report: CheckReport, chosen: CorrelationResult): Recommendation {
-  const n = report.n;
-  const rank = n < KENDALL_BELOW_N ? 'Kendall tau-b' : 'Spearman';
-  const rankMethod: Method = n < KENDALL_BELOW_N ? 'kendall' : 'spearman';
-  const rankWhy = n < KENDALL_BELOW_N ? `Kendall's tau-b suits fewer than ${KENDALL_BELOW_N} pairs` : '';
-  const chosenIsRank = chosen.method !== 'pearson';
-  const orderCaution = flagged(report, 'row-order')
-    ? ' Neighbouring rows are alike, so whichever coefficient you report, its p-value and interval are too optimistic.'
-    : '';
-  const influence = rowOf(report, 'influence');
-
-  if (report.points.setsSlope >= 0) {
-    return {
-      name: 'none',
-      method: null,
-      changed: true,
-      reason: `${capital(influence.flag ?? 'one point sets the slope')}: every coefficient, rank-based ones included, rests on that point, so collect data across the range of x before reading a correlation.${orderCaution}`,
-    };
-  }
-  if (chosen.name === 'phi') {
-    return {
-      name: 'phi',
-      method: 'pearson',
-      changed: false,
-      reason: `Both columns take two values, so phi (Pearson on a 2 x 2 table) is the usual coefficient and the shape checks do not apply.${orderCaution}`,
-    };
-  }
-  const outlier = rowOf(report, 'outliers');
-  const pulls: string[] = [];
-  if (flagged(report, 'outliers')) pulls.push(`an outlier (${outlier.place})`);
-  if (flagged(report, 'influence') && !(flagged(report, 'outliers') && influence.place === outlier.place)) {
-    pulls.push(`an influential point (${influence.place})`);
-  }
-  const SHAPE_NAMES = { 'normal-x': 'x', 'normal-y': 'y', 'normal-residuals': 'the residuals' } as const;
-  const shapes: string[] = [];
-  for (const key of ['normal-x', 'normal-y', 'normal-residuals'] as const) if (flagged(report, key)) shapes.push(SHAPE_NAMES[key]);
-  const curved = flagged(report, 'straight-line');
-
-  const causes: string[] = [];
-  if (pulls.length > 0) causes.push(`${listWords(pulls)} ${pulls.length > 1 ? 'pull' : 'pulls'} Pearson's r`);
-  if (shapes.length > 0) {
-    causes.push(`${listWords(shapes)} ${shapes.length > 1 || shapes[0] === 'the residuals' ? 'are' : 'is'} not normal, so Pearson's p-value and interval are approximate`);
-  }
-  const rankTail = rankWhy ? ` (${rankWhy})` : '';
-
-  if (curved) {
-    // A curve comes first: outliers and shape flags of a straight line that does not fit follow from it.
-    const also = causes.length > 0 ? ` Also, ${causes.join('; ')}.` : '';
-    const follows = 'follows any steadily rising or falling pattern, but if the curve turns back no single coefficient describes it';
-    if (chosenIsRank) {
-      return { name: chosen.name, method: chosen.method, changed: false, reason: `The points bend away from a straight line; ${chosen.name} (as chosen) ${follows}.${also}${orderCaution}` };
-    }
-    return {
-      name: rank,
-      method: rankMethod,
-      changed: true,
-      reason: `The points bend away from a straight line, which Pearson's r measures only in part; a rank coefficient${rankTail} ${follows}.${also}${orderCaution}`,
-    };
-  }
-  if (causes.length > 0) {
-    const why = `${capital(causes.join('; '))}. Rank coefficients resist single points and need no normal shape`;
-    if (chosenIsRank) {
-      return { name: chosen.name, method: chosen.method, changed: false, reason: `${why}, so ${chosen.name} (as chosen) suits these data.${orderCaution}` };
-    }
-    return { name: rank, method: rankMethod, changed: true, reason: `${why}${rankWhy ? `; ${rankWhy}` : ''}.${orderCaution}` };
-  }
-  if (flagged(report, 'even-spread')) {
-    return { name: chosen.name, method: chosen.method, changed: false, reason: `The scatter is uneven across x: ${chosen.name} still summarises the trend, but its p-value and interval are approximate.${orderCaution}` };
-  }
-  const untested = report.notTestable > 0 ? ` (${report.notTestable} of the eight could not run; see CHECKS)` : '';
-  if (orderCaution) {
-    return { name: chosen.name, method: chosen.method, changed: false, reason: `No check of shape or single points raised a flag${untested}.${orderCaution}` };
-  }
-  return { name: chosen.name, method: chosen.method, changed: false, reason: `No check raised a flag${untested}, so ${chosen.name} can be read as it stands.` };
-}
-
-function capital(s: string): string {
-  return s.charAt(0).toUpperCase() + s.slice(1);
+/** The strength word of a result, read on the scale of r (Kendall's tau through Greiner's relation). */
+export function strengthOf(result: CorrelationResult): { word: StrengthWord; rScale: number } {
+  const rScale = result.method === 'kendall' ? tauOnRScale(result.statistic) : result.statistic;
+  return { word: strengthWord(rScale), rScale };
 }
 
 /** The symbol a coefficient is reported under. */
@@ -158,35 +64,193 @@ export function coefficientSymbol(result: CorrelationResult): string {
   return METHOD_LABELS[result.method].symbol;
 }
 
+/** Fewer pairs than this: prefer Kendall's tau-b to Spearman's rho (common applied advice, not a theorem: its
+ * null distribution nears the normal sooner and it handles ties more gracefully). */
+const KENDALL_BELOW_N = 25;
+
+/** Checks that could not see or run: from this many of the eight, the data are too few to judge the assumptions. */
+export const BLIND_CHECKS_LIMIT = 4;
+
+function rowOf(report: CheckReport, key: CheckKey): CheckRow {
+  return report.checks.find((c) => c.key === key)!;
+}
+
+function problem(report: CheckReport, key: CheckKey): boolean {
+  return rowOf(report, key).verdict === 'problem';
+}
+
+/** "a, b and c". */
+export function listWords(items: string[]): string {
+  if (items.length <= 1) return items.join('');
+  return `${items.slice(0, -1).join(', ')} and ${items[items.length - 1]}`;
+}
+
+function capital(s: string): string {
+  return s.charAt(0).toUpperCase() + s.slice(1);
+}
+
+/** True when too many checks could not see or run for the assumptions to be judged. */
+export function tooFewToJudge(report: CheckReport): boolean {
+  return report.tooFew + report.notTestable >= BLIND_CHECKS_LIMIT;
+}
+
 /**
- * One plain-language sentence reading the correlation: direction, strength in Cohen's (1988) words, what the
+ * Which coefficient to report, and the remedy that fits what the checks found (the usual guidance of applied
+ * texts, e.g. Wilcox 2017, Introduction to Robust Estimation and Hypothesis Testing, 4th ed., ch. 9: rank
+ * coefficients resist single points and need no normal shape; none repairs dependence between rows or a curve
+ * that turns back). In order:
+ * - one point sets the slope: no coefficient is reliable; collect data across x;
+ * - an outlier whose value is far outside its column: check that row for a data-entry error first;
+ * - neighbouring rows alike: keep the coefficient, but read the p-value and interval with the effective rows
+ *   (Pyper & Peterman 1998) or correlate the changes from row to row; a rank coefficient fixes neither;
+ * - a curve: a rank coefficient, which follows any steadily rising or falling pattern;
+ * - an outlier, a row the conclusion rests on, or a strongly non-normal shape: a rank coefficient;
+ * - uneven spread: the logarithm of y when y is positive and the spread widens with x, else a rank coefficient;
+ * - (a rank coefficient is Kendall's tau-b below 25 pairs, Spearman's rho otherwise; a rank coefficient already
+ *   chosen is kept);
+ * - nothing serious, but too few rows for the checks to see: collect more rows before relying on the result;
+ * - only slight departures, or none: the coefficient as it stands.
+ */
+export function recommendCoefficient(report: CheckReport, chosen: CorrelationResult, yAllPositive = false): Recommendation {
+  const n = report.n;
+  const rankName = n < KENDALL_BELOW_N ? 'Kendall tau-b' : 'Spearman';
+  const rankMethod: Method = n < KENDALL_BELOW_N ? 'kendall' : 'spearman';
+  const rankWhy = n < KENDALL_BELOW_N ? ` (Kendall's tau-b suits fewer than ${KENDALL_BELOW_N} pairs)` : '';
+  const chosenIsRank = chosen.method !== 'pearson';
+  const keep = (reason: string, remedy: Remedy): Recommendation => ({ name: chosen.name, method: chosen.method, changed: false, reason, remedy });
+  const toRank = (reason: string, remedy: Remedy = 'rank'): Recommendation =>
+    chosenIsRank
+      ? { name: chosen.name, method: chosen.method, changed: false, reason: `${reason} ${chosen.name} (as chosen) is a rank coefficient and resists it.`, remedy }
+      : { name: rankName, method: rankMethod, changed: true, reason: `${reason} A rank coefficient${rankWhy} resists it.`, remedy };
+  const order = problem(report, 'row-order');
+  const orderWords = (() => {
+    if (!order) return '';
+    const eff = report.effectiveRows;
+    const rows = eff ? ` (about ${num(eff.effective)} effective rows of ${n})` : '';
+    return ` Neighbouring rows are alike${rows}: read the p-value and interval with the effective rows, or correlate the changes from one row to the next instead of the levels.`;
+  })();
+
+  if (report.points.setsSlope >= 0) {
+    const infl = rowOf(report, 'influence');
+    return {
+      name: 'none', method: null, changed: true, remedy: 'collect-across-x',
+      reason: `${capital(infl.flag ?? 'one point sets the slope')}: every coefficient, rank-based ones included, rests on that point, so collect data across the range of x before reading a correlation.${orderWords}`,
+    };
+  }
+  if (chosen.name === 'phi') {
+    return keep(`Both columns take two values, so phi (Pearson on a 2 x 2 table) is the usual coefficient and the shape checks do not apply.${orderWords}`, order ? 'effective-rows' : null);
+  }
+  const outlier = rowOf(report, 'outliers');
+  if (outlier.verdict === 'problem' && outlier.detail.farOut === 1) {
+    const rec = toRank(`Check ${outlier.place} for a data-entry error first: its value lies far outside the rest of its column (more than three interquartile ranges beyond the quartiles, Tukey 1977), and ${outlier.effect?.text ?? 'it moves r'}. If the value is right,`);
+    return { ...rec, reason: `${rec.reason}${orderWords}`, remedy: 'check-row' };
+  }
+  if (order) {
+    return keep(
+      `${orderWords.trim()} A rank coefficient would not help: it assumes independent rows too.`,
+      'effective-rows',
+    );
+  }
+  const influence = rowOf(report, 'influence');
+  const shapes = (['normal-x', 'normal-y', 'normal-residuals'] as const).filter((k) => problem(report, k));
+  const shapeNames = { 'normal-x': 'x', 'normal-y': 'y', 'normal-residuals': 'the residuals' } as const;
+  const causes: string[] = [];
+  if (outlier.verdict === 'problem') causes.push(`an outlier (${outlier.place}) ${outlier.effect?.text ? `moves r: ${outlier.effect.text}` : 'pulls Pearson\'s r'}`);
+  if (influence.verdict === 'problem' && influence.place !== outlier.place) causes.push(`the conclusion rests on ${influence.place}`);
+  if (shapes.length > 0) {
+    causes.push(`${listWords(shapes.map((k) => shapeNames[k]))} ${shapes.length > 1 || shapes[0] === 'normal-residuals' ? 'are' : 'is'} strongly non-normal, so Pearson's p-value and interval are unreliable`);
+  }
+  if (problem(report, 'straight-line')) {
+    const also = causes.length > 0 ? ` Also, ${causes.join('; ')}.` : '';
+    return toRank(`The points bend away from a straight line, which Pearson's r measures only in part; a coefficient that follows any steadily rising or falling pattern fits better, but if the curve turns back no single coefficient describes it.${also}`);
+  }
+  if (causes.length > 0) return toRank(`${capital(causes.join('; '))}.`);
+  const spread = rowOf(report, 'even-spread');
+  if (spread.verdict === 'problem') {
+    const widens = spread.detail.widensUpward === 1;
+    if (yAllPositive && widens) {
+      return keep(
+        `The scatter widens as x grows, enough to make Pearson's interval too narrow (${spread.effect?.text ?? ''}). Take the logarithm of y, which often evens such a spread out, or use a rank coefficient${rankWhy}.`,
+        'log',
+      );
+    }
+    return toRank(`The scatter is uneven across x (${spread.effect?.text ?? ''}), so Pearson's p-value and interval are too optimistic.`);
+  }
+  const slight = report.minor;
+  const slightWords = slight.length > 0 ? ` Slight departures were found (${slight.join('; ')}), too small to change the conclusion at ${n} rows.` : '';
+  if (tooFewToJudge(report)) {
+    return keep(
+      `With ${n} rows most of the checks cannot see whether the assumptions hold (${report.tooFew + report.notTestable} of the eight could not tell): read ${chosen.name}'s interval, not just its value, and collect more rows before a decision rests on it.${slightWords}`,
+      'more-rows',
+    );
+  }
+  const blind = report.tooFew + report.notTestable;
+  const blindWords = blind > 0 ? ` (${blind} of the eight could not tell with ${n} rows; see CHECKS)` : '';
+  return keep(`No check found a departure that changes the conclusion${blindWords}, so ${chosen.name} can be read as it stands.${slightWords}`, null);
+}
+
+/**
+ * One plain-language sentence reading the correlation: when its interval includes zero, that the data show no
+ * clear relationship and which correlations they cannot rule out (never a direction); otherwise its direction and
+ * strength in Cohen's (1988) words, read on the scale of r (Kendall's tau through Greiner's relation), what the
  * p-value is (the chance of data at least this extreme if there were no correlation) and is not (the chance that
- * there is none), and, when the data point to a correlation, that it does not by itself show cause.
+ * there is none), and that a correlation does not by itself show cause.
  * @param significance the level below which p counts as evidence, normally 1 - the interval's level
  */
 export function plainReading(result: CorrelationResult, report: CheckReport | null, significance: number): string {
   const sym = coefficientSymbol(result);
   const est = result.statistic;
-  const rScale = result.method === 'kendall' ? tauOnRScale(est) : est;
-  const strength = strengthWord(rScale);
-  const estText = result.method === 'kendall'
-    ? `${sym} = ${num(est)} (about r = ${num(rScale)} by Greiner's relation)`
-    : `${sym} = ${num(est)}`;
+  const { word, rScale } = strengthOf(result);
+  const estText = result.method === 'kendall' ? `${sym} = ${num(est)} (about r = ${num(rScale)} by Greiner's relation)` : `${sym} = ${num(est)}`;
   const p = result.pValue;
   const pText = p < 0.001 ? 'p, below 0.001,' : `p = ${String(Number(p.toPrecision(2)))}`;
   const pMeaning = `${pText} is the chance of data at least this extreme if there were no correlation (not the chance that there is none)`;
   const caveat = report && report.flags.length > 0 ? 'Taken at face value (see the flags), across' : 'Across';
   const n = result.n;
   const levelPct = `${Number((result.interval.level * 100).toPrecision(4))}%`;
-  const hasInterval = Number.isFinite(result.interval.lower) && Number.isFinite(result.interval.upper);
-  if (est === 0) {
-    return `${caveat} ${n} pairs, ${estText} shows no ${result.method === 'pearson' ? 'straight-line ' : ''}association; ${pMeaning}.`;
+  const { lower, upper } = result.interval;
+  const hasInterval = Number.isFinite(lower) && Number.isFinite(upper);
+  const clear = hasInterval ? lower > 0 || upper < 0 : p < significance;
+  if (!clear || est === 0) {
+    const range = hasInterval
+      ? `: the ${levelPct} interval runs from ${num(lower)} to ${num(upper)}, so the data cannot rule out a correlation as strong as ${num(Math.abs(lower))} in the negative direction or ${num(Math.abs(upper))} in the positive`
+      : '';
+    return `${caveat} ${n} pairs the data show no clear relationship (${estText}; ${pMeaning})${range}.`;
   }
-  if (p < significance) {
-    const direction = est > 0 ? 'y tends to rise as x rises' : 'y tends to fall as x rises';
-    return `${caveat} ${n} pairs, ${direction}: ${estText} is a ${strength} correlation by ${STRENGTH_CONVENTION}, and ${pMeaning}, so chance alone is an unlikely explanation, though a correlation by itself does not show that x causes y.`;
+  const direction = est > 0 ? 'y tends to rise as x rises' : 'y tends to fall as x rises';
+  return `${caveat} ${n} pairs, ${direction}: ${estText} is a ${word} correlation by ${STRENGTH_CONVENTION}, and ${pMeaning}, so chance alone is an unlikely explanation, though a correlation by itself does not show that x causes y.`;
+}
+
+/**
+ * The panel's reading in short sentences naming the columns: a clear relationship with its strength and
+ * direction, or no clear relationship with the correlations the data cannot rule out; the interval; the p-value
+ * and what it is not.
+ * @example readCorrelation(res, 'Visits', 'Sales')[0] // "Medium positive correlation by Cohen's (1988) convention ..."
+ */
+export function readCorrelation(res: CorrelationResult, xName: string, yName: string, show: (v: number) => string): string[] {
+  const r = res.statistic;
+  const { word, rScale } = strengthOf(res);
+  const lines: string[] = [];
+  const pct = `${Math.round(res.interval.level * 100)}%`;
+  const { lower, upper } = res.interval;
+  const hasInterval = Number.isFinite(lower) && Number.isFinite(upper);
+  const clear = hasInterval ? lower > 0 || upper < 0 : res.pValue < 1 - res.interval.level;
+  const greiner = res.method === 'kendall' ? ` (τ-b ${show(r)} is about r = ${show(rScale)} by Greiner's relation, sin(πτ/2))` : '';
+  if (r === 0 || !clear) {
+    lines.push(`No clear relationship between ${xName} and ${yName} in these ${res.n.toLocaleString('en-US')} rows.`);
+    if (hasInterval) {
+      lines.push(
+        `The ${pct} interval, ${show(lower)} to ${show(upper)}, includes zero: the data cannot rule out a correlation as strong as ${show(Math.abs(lower))} (negative) or ${show(Math.abs(upper))} (positive).`,
+      );
+    }
+  } else {
+    lines.push(
+      `${word[0].toUpperCase()}${word.slice(1)} ${r > 0 ? 'positive' : 'negative'} correlation by ${STRENGTH_CONVENTION}${greiner}: higher ${xName} tends to go with ${r > 0 ? 'higher' : 'lower'} ${yName}.`,
+    );
+    if (hasInterval) lines.push(`The ${pct} interval, ${show(lower)} to ${show(upper)}, holds the correlations these data are consistent with.`);
   }
-  const sign = est > 0 ? 'positive' : 'negative';
-  const interval = hasInterval ? `: the ${levelPct} interval runs from ${num(result.interval.lower)} to ${num(result.interval.upper)}` : '';
-  return `${caveat} ${n} pairs, ${estText} is a ${strength} ${sign} correlation by ${STRENGTH_CONVENTION}, but ${pMeaning}, so these data can neither confirm a correlation nor rule one out${interval}.`;
+  if (!hasInterval && res.interval.note) lines.push(`No interval: ${res.interval.note}.`);
+  const p = res.pValue < 0.001 ? '< 0.001' : res.pValue.toFixed(3);
+  lines.push(`p ${p.startsWith('<') ? p : `= ${p}`} is how often data at least this far from zero correlation would turn up if there were none; it is not the chance that there is none.`);
+  return lines;
 }

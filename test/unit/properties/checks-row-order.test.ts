@@ -64,7 +64,7 @@ describe('CHECKS under a shuffle of the rows', () => {
           }
           const p = row[3];
           const nearAlpha = typeof p === 'number' && Math.abs(p - 0.05) < 1e-9;
-          if (row[4] !== other[4] && !nearAlpha) problems.push(`${row[0]} verdict ${String(row[4])} vs ${String(other[4])}`);
+          if (row[5] !== other[5] && !nearAlpha) problems.push(`${row[0]} verdict ${String(row[5])} vs ${String(other[5])}`);
         });
         expect(orderRows).toBe(1);
         if (problems.length) throw new Error(`rows ${JSON.stringify(perm)}: ${problems.join('; ')}`);

@@ -45,7 +45,8 @@ describe('units that differ by about 1e308 between x and y (each value within 1e
   // y by 2^319 (~1e96) must not change them; only the slope in y-units-per-x-unit (2^1024 times larger) leaves the
   // range of doubles, and no check needs it in those units.
   const inv = { parameterAddresses: ['Sheet1!B2:B10', 'Sheet1!C2:C10', null], address: 'Sheet1!E2' };
-  const statisticsOf = (v: unknown) => (v as unknown[][]).slice(1).map((r) => [r[0], r[2], r[3], r[4]]);
+  // Label, statistic, p-value, verdict (the effect's words hold figures rounded for reading, compared apart).
+  const statisticsOf = (v: unknown) => (v as unknown[][]).slice(1).map((r) => [r[0], r[2], r[3], r[5]]);
 
   test('CHECKS(x * 2^-705, y * 2^319) = CHECKS(x, y) in every statistic, p-value and verdict', () => {
     const plain = callCell('CHECKS', [col(rRef.x), col(rRef.y), null, inv]);
@@ -98,7 +99,7 @@ describe('CHECKS on data that lie exactly on a line: the same answer in any row 
     const ra = rows(a.value);
     const rb = rows(b.value);
     ra.forEach((row, i) => {
-      expect([row[0], rb[i][4]]).toEqual([row[0], row[4]]);
+      expect([row[0], rb[i][5]]).toEqual([row[0], row[5]]); // the verdict
       for (const c of [2, 3]) {
         if (typeof row[c] === 'number') expectRel(rb[i][c] as number, row[c] as number, 1e-9, `${String(row[0])} column ${c}`);
         else expect([row[0], c, rb[i][c]]).toEqual([row[0], c, row[c]]);

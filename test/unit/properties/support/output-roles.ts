@@ -86,19 +86,55 @@ function matrixTable(value: unknown, args: unknown[]): string[] {
   return out;
 }
 
-/** CHECKS: a header row and one row per check: statistic, p-value in [0, 1] or "", a known verdict. */
+/** CHECKS: a header row and one row per check: statistic, p-value in [0, 1] or "", effect text, a known verdict,
+ * a meaning and the rule applied. */
 function checksTable(value: unknown): string[] {
-  if (!Array.isArray(value) || value.length < 2) return ['CHECKS answered no table'];
+  if (!Array.isArray(value) || value.length !== 9) return ['CHECKS answered no table of a header and eight rows'];
   const rows = value as unknown[][];
   const out: string[] = [];
   rows.slice(1).forEach((r, i) => {
-    if (r.length !== 6) out.push(`check row ${i + 1} has ${r.length} cells`);
-    const [label, , statistic, p, verdict] = r;
+    if (r.length !== 8) out.push(`check row ${i + 1} has ${r.length} cells`);
+    const [label, , statistic, p, effect, verdict, meaning, rule] = r;
     if (typeof label !== 'string' || label === '') out.push(`check row ${i + 1} has no label`);
     if (statistic !== '' && typeof statistic !== 'number') out.push(`${label}: statistic ${String(statistic)}`);
     if (p !== '') out.push(...probability(p, `${label} p-value`));
-    if (!['ok', 'flag', 'not testable'].includes(verdict as string)) out.push(`${label}: verdict ${String(verdict)}`);
+    if (typeof effect !== 'string') out.push(`${label}: effect ${String(effect)}`);
+    if (!['fine', 'slight', 'problem', 'too few rows', 'not testable'].includes(verdict as string)) out.push(`${label}: verdict ${String(verdict)}`);
+    if (verdict !== 'not testable' && effect === '') out.push(`${label}: a check that ran gives no effect`);
+    if (typeof meaning !== 'string' || meaning === '' || typeof rule !== 'string' || rule === '') out.push(`${label}: no meaning or rule`);
   });
+  return out;
+}
+
+/** SENSITIVITY: a header, the alternatives (coefficient in [-1, 1], its interval, p, rows, a conclusion), a summary. */
+function sensitivityTable(value: unknown): string[] {
+  if (!Array.isArray(value) || value.length < 3) return ['SENSITIVITY answered no table'];
+  const rows = value as unknown[][];
+  const out: string[] = [];
+  rows.slice(1, -1).forEach((r, i) => {
+    if (r.length !== 8) out.push(`row ${i + 1} has ${r.length} cells`);
+    out.push(...inUnit(r[1], `row ${i + 1} coefficient`));
+    if (isNum(r[2]) && isNum(r[3]) && !(r[2] <= (r[1] as number) && (r[1] as number) <= r[3])) out.push(`row ${i + 1}: interval [${r[2]}, ${r[3]}] does not contain ${r[1]}`);
+    out.push(...probability(r[4], `row ${i + 1} p-value`));
+    if (!['positive correlation', 'negative correlation', 'no clear correlation'].includes(r[6] as string)) out.push(`row ${i + 1}: conclusion ${String(r[6])}`);
+    if (!['yes', 'no'].includes(r[7] as string)) out.push(`row ${i + 1}: holds ${String(r[7])}`);
+  });
+  const last = rows[rows.length - 1];
+  if (last[0] !== 'Summary' || typeof last[1] !== 'string' || (last[1] as string).length < 10) out.push('no summary row');
+  return out;
+}
+
+/** BAYES and BAYES_REPORTED: BF10 and BF01 (reciprocal) positive, a probability, median within its interval. */
+function bayesRow(value: unknown): string[] {
+  if (!Array.isArray(value) || value.length !== 1 || !Array.isArray(value[0]) || value[0].length !== 6) return [`expected one row of six cells, got ${JSON.stringify(value)}`];
+  const [bf10, bf01, post, median, lower, upper] = value[0] as unknown[];
+  const out: string[] = [];
+  if (isNum(bf10) && isNum(bf01)) {
+    if (!(bf10 >= 0 && bf01 >= 0)) out.push(`negative Bayes factor ${bf10}, ${bf01}`);
+    if (bf10 > 1e-300 && bf01 > 1e-300 && Math.abs(bf10 * bf01 - 1) > 1e-9) out.push(`BF10 ${bf10} and BF01 ${bf01} are not reciprocal`);
+  } else if (typeof bf10 !== 'string' && typeof bf01 !== 'string') out.push('Bayes factors are neither numbers nor words');
+  out.push(...probability(post, 'posterior probability'), ...inUnit(median, 'median'), ...inUnit(lower, 'lower'), ...inUnit(upper, 'upper'));
+  if (isNum(lower) && isNum(median) && isNum(upper) && !(lower <= median && median <= upper)) out.push(`median ${median} outside [${lower}, ${upper}]`);
   return out;
 }
 
@@ -167,6 +203,16 @@ export const OUTPUT_ROLES: Record<string, RoleCheck> = {
   FLAGS: (v) => (Array.isArray(v) && v.length === 1 && Array.isArray(v[0]) && v[0].length === 1 && typeof v[0][0] === 'string' ? [] : [`FLAGS answered ${JSON.stringify(v)}`]),
   // @returns A two-column table: what is reported, and its value.
   REPORT: reportTable,
+  // @returns A table: header, alternatives, summary.
+  SENSITIVITY: sensitivityTable,
+  // @returns One row: the larger one-sided p, the 1 - 2 alpha interval, the verdict in words.
+  NEGLIGIBLE: (v) => {
+    if (!Array.isArray(v) || v.length !== 1 || !Array.isArray(v[0]) || v[0].length !== 4) return [`expected one row of four cells, got ${JSON.stringify(v)}`];
+    const [p, lo, hi, words] = v[0] as unknown[];
+    return [...probability(p), ...inUnit(lo, 'lower'), ...inUnit(hi, 'upper'), ...(typeof words === 'string' && /negligible/.test(words) ? [] : [`verdict ${String(words)}`])];
+  },
+  BAYES: bayesRow,
+  BAYES_REPORTED: bayesRow,
   // @returns The power, between 0 and 1.
   POWER: (v) => probability(v, 'power'),
   // @returns The number of rows (pairs of values), a whole number.

@@ -29,7 +29,8 @@ export function metaOf(id: string): FunctionMeta | undefined {
  */
 export const EXPECTED_FUNCTIONS = [
   'COEF', 'INTERVAL', 'PVALUE', 'PAIRS', 'REPORTED',
-  'CHECKS', 'FLAGS', 'REPORT',
+  'CHECKS', 'FLAGS', 'REPORT', 'SENSITIVITY',
+  'NEGLIGIBLE', 'BAYES', 'BAYES_REPORTED',
   'DIFF_GROUPS', 'DIFF_SHARED', 'DIFF_SEPARATE', 'DIFF_REPORTED', 'PARTIAL', 'MATRIX',
   'POWER', 'SAMPLE_SIZE', 'DETECTABLE',
 ] as const;

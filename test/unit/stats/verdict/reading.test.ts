@@ -1,43 +1,53 @@
 /** The plain-language reading. Strength words follow Cohen (1988), Statistical Power Analysis for the Behavioral
  * Sciences, 2nd ed., ch. 3: |r| = .1 small, .3 medium, .5 large; Kendall's tau is worded on the scale of r by
- * Greiner's relation r = sin(pi tau / 2) (Kendall 1970, Rank Correlation Methods). */
-import { formatPValue, formatR } from '../../../src/stats/format';
-import { readCorrelation } from '../../../taskpane/reading';
-import type { CorrelationResult } from '../../../src/stats/types';
+ * Greiner's relation r = sin(pi tau / 2) (Kendall 1970, Rank Correlation Methods). An interval that includes zero
+ * gives no direction at all. */
+import { formatCorrelation, formatPValue, formatR } from '../../../../src/stats/format';
+import { readCorrelation } from '../../../../src/stats/verdict/advice';
+import type { CorrelationResult } from '../../../../src/stats/types';
 
-test('number formats keep a visible sign and a true minus', () => {
+const result = (r: number, lower: number, upper: number, p: number, method: CorrelationResult['method'] = 'pearson', n = 40): CorrelationResult => ({
+  method, name: method === 'kendall' ? 'Kendall tau-b' : method === 'spearman' ? 'Spearman' : 'Pearson', statistic: r, pValue: p, tail: 'both',
+  interval: { lower, upper, level: 0.95, method: '' }, n, test: { name: 't', value: 0, df: n - 2 }, pMethod: '',
+});
+
+test('number formats keep a visible sign and a true minus, and never show a bound short of 1 as 1', () => {
   expect(formatR(0.816)).toBe('0.82');
   expect(formatR(-0.4)).toBe('−0.40');
   expect(formatR(-0.003)).toBe('−0.003');
+  expect(formatR(0.994)).toBe('0.99');
+  expect(formatR(0.996)).toBe('0.996');
+  expect(formatR(-0.9999)).toBe('−0.9999');
+  expect(formatR(1)).toBe('1.00');
+  expect(formatCorrelation(0.99996)).toBe('0.99996');
+  expect(formatCorrelation(0.816)).toBe('0.816');
   expect(formatPValue(0.0004)).toBe('< 0.001');
   expect(formatPValue(0.0534)).toBe('0.053');
 });
 
-test('the reading says what p is and what it is not, and whether the interval includes zero', () => {
-  const res: CorrelationResult = {
-    method: 'pearson', name: 'Pearson', statistic: -0.35, pValue: 0.04, tail: 'both',
-    interval: { lower: -0.6, upper: 0.02, level: 0.95, method: '' }, n: 40, test: { name: 't', value: -2.1, df: 38 }, pMethod: '',
-  };
-  const lines = readCorrelation(res, 'Price', 'Orders');
+test('an interval that excludes zero: strength, direction named by the columns, what p is and is not', () => {
+  const lines = readCorrelation(result(-0.35, -0.6, -0.04, 0.03), 'Price', 'Orders', formatR);
   expect(lines[0]).toMatch(/^Medium negative correlation by Cohen's \(1988\) convention .*: higher Price tends to go with lower Orders\.$/);
-  expect(lines[1]).toMatch(/includes zero/);
+  expect(lines[1]).toMatch(/holds the correlations these data are consistent with/);
   expect(lines[2]).toMatch(/not the chance that there is none/);
 });
 
-test("Kendall's tau is worded on the scale of r: tau = 0.35 is about r = 0.52, a large correlation", () => {
-  const res: CorrelationResult = {
-    method: 'kendall', name: 'Kendall tau-b', statistic: 0.35, pValue: 0.001, tail: 'both',
-    interval: { lower: 0.15, upper: 0.52, level: 0.95, method: '' }, n: 60, test: { name: 'z', value: 3.9 }, pMethod: '',
-  };
-  // sin(pi * 0.35 / 2) = 0.5225 (Greiner's relation), above Cohen's .5 for "large".
-  expect(readCorrelation(res, 'a', 'b')[0]).toMatch(/^Large positive correlation/);
+test('an interval that includes zero: no direction, and what the data cannot rule out', () => {
+  const lines = readCorrelation(result(-0.05, -0.33, 0.24, 0.74, 'pearson', 48), 'Households nearby', 'Rent per month', formatR);
+  expect(lines[0]).toBe('No clear relationship between Households nearby and Rent per month in these 48 rows.');
+  expect(lines.join(' ')).not.toMatch(/tends to go with|higher|lower/);
+  expect(lines[1]).toBe('The 95% interval, −0.33 to 0.24, includes zero: the data cannot rule out a correlation as strong as 0.33 (negative) or 0.24 (positive).');
 });
 
-test('Cohen thresholds: .1 small, .3 medium, .5 large, below .1 very small', () => {
-  const at = (r: number): string => readCorrelation({
-    method: 'pearson', name: 'Pearson', statistic: r, pValue: 0.5, tail: 'both',
-    interval: { lower: -0.9, upper: 0.9, level: 0.95, method: '' }, n: 10, test: { name: 't', value: 0 }, pMethod: '',
-  }, 'a', 'b')[0];
+test("Kendall's tau is worded on the scale of r: tau = 0.35 is about r = 0.52, a large correlation", () => {
+  // sin(pi * 0.35 / 2) = 0.5225 (Greiner's relation), above Cohen's .5 for "large".
+  const line = readCorrelation(result(0.35, 0.15, 0.52, 0.001, 'kendall', 60), 'a', 'b', formatR)[0];
+  expect(line).toMatch(/^Large positive correlation/);
+  expect(line).toMatch(/τ-b 0\.35 is about r = 0\.52 by Greiner's relation/);
+});
+
+test('Cohen thresholds: .1 small, .3 medium, .5 large, below .1 very small (intervals that exclude zero)', () => {
+  const at = (r: number): string => readCorrelation(result(r, r > 0 ? r / 2 : r * 1.5, r > 0 ? r * 1.5 : r / 2, 0.001, 'pearson', 5000), 'a', 'b', formatR)[0];
   expect(at(0.05)).toMatch(/^Very small/);
   expect(at(0.1)).toMatch(/^Small/);
   expect(at(-0.3)).toMatch(/^Medium/);

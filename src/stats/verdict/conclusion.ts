@@ -1,0 +1,71 @@
+/**
+ * Everything the reader is told about one correlation, computed once for REPORT and the panel alike: the
+ * coefficient, the advice, whether the conclusion holds (sensitivity.ts), and, when the interval includes zero,
+ * the evidence for a correlation too small to matter (an equivalence test) and the Bayes factor, with the smallest
+ * correlation these rows could detect.
+ */
+import type { CheckReport } from '../checks/check-report';
+import { bayesCorrelation, BayesResult } from '../correlation/bayes';
+import { equivalenceTest, EquivalenceResult } from '../correlation/benchmark';
+import { correlatePrepared } from '../correlation/correlate';
+import { PreparedPairs } from '../correlation/prepared';
+import { detectableCorrelation, MAX_PLANNING_N } from '../planning/power';
+import { CorrelationResult, Method } from '../types';
+import { plainReading, recommendCoefficient, Recommendation } from './advice';
+import { sensitivity, Sensitivity } from './sensitivity';
+
+/** The equivalence bound used when none is asked for: |rho| < 0.1, below Cohen's (1988) "small". */
+export const NEGLIGIBLE_BOUND = 0.1;
+
+export interface Conclusion {
+  correlation: CorrelationResult;
+  recommendation: Recommendation;
+  sensitivity: Sensitivity;
+  /** When the interval includes zero: is the correlation within +/- NEGLIGIBLE_BOUND? */
+  equivalence: EquivalenceResult | null;
+  /** When the interval includes zero: the Bayes factor for Pearson's r, uniform prior, even prior odds. */
+  bayes: BayesResult | null;
+  /** The smallest correlation these rows detect 8 times in 10 at the interval's alpha (two-sided, exact). */
+  detectable: number | null;
+  reading: string;
+}
+
+export interface ConclusionOptions {
+  method: Method;
+  level: number;
+  name: (i: number) => string;
+}
+
+export function conclude(prepared: PreparedPairs, report: CheckReport, opts: ConclusionOptions): Conclusion {
+  const correlation = correlatePrepared(prepared, { method: opts.method, tail: 'both', level: opts.level });
+  let yAllPositive = true;
+  for (let i = 0; i < prepared.n && yAllPositive; i++) if (!(prepared.y[i] > 0)) yAllPositive = false;
+  const recommendation = recommendCoefficient(report, correlation, yAllPositive);
+  const sens = sensitivity(prepared, report, opts);
+  const n = prepared.n;
+  const alpha = 1 - opts.level;
+  let equivalence: EquivalenceResult | null = null;
+  let bayes: BayesResult | null = null;
+  if (sens.direction === 'none') {
+    try {
+      equivalence = equivalenceTest(correlation.statistic, n, opts.method, NEGLIGIBLE_BOUND, Math.min(alpha, 0.49));
+    } catch {
+      equivalence = null;
+    }
+    try {
+      const pearson = opts.method === 'pearson' ? correlation : correlatePrepared(prepared, { method: 'pearson', tail: 'both', level: opts.level });
+      bayes = bayesCorrelation(pearson.statistic, n);
+    } catch {
+      bayes = null;
+    }
+  }
+  let detectable: number | null = null;
+  if (n >= 4 && n <= MAX_PLANNING_N) {
+    try {
+      detectable = detectableCorrelation(n, 0.8, { alpha, tail: 'both' }).rho;
+    } catch {
+      detectable = null;
+    }
+  }
+  return { correlation, recommendation, sensitivity: sens, equivalence, bayes, detectable, reading: plainReading(correlation, report, alpha) };
+}
