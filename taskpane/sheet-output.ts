@@ -6,6 +6,7 @@
 import { CellBlock, formatBlock } from '../src/sheet/a1';
 import type { ColumnSource } from './workbook';
 import { Method, METHOD_LABELS } from '../src/stats/types';
+import { Entry, formulaEntry, textEntry } from '../src/sheet/entries';
 
 /** How one column of the pair is referred to in a formula. */
 export interface ColumnRef {
@@ -58,19 +59,19 @@ export function formulaBlock(
   names: { x: string; y: string },
   targetSheet: string,
   o: FormulaOptions,
-): string[][] {
+): Entry[][] {
   const xr = columnReference(x, targetSheet, o.a1);
   const yr = columnReference(y, targetSheet, o.a1);
   const args = `${xr}, ${yr}`;
   const m = literal(o.method);
   const pct = `${Math.round(o.level * 1000) / 10}%`;
   return [
-    [`Covary: ${names.y} against ${names.x}`, ''],
-    [`Coefficient (${METHOD_LABELS[o.method].name})`, `=COVARY.COEF(${args}, ${m})`],
-    [`${pct} interval (lower, upper)`, `=COVARY.INTERVAL(${args}, ${o.level}, ${m})`],
-    ['p-value (two-sided)', `=COVARY.PVALUE(${args}, "both", ${m})`],
-    ['Pairs used', `=COVARY.PAIRS(${args})`],
-    ['Flags', `=COVARY.FLAGS(${args}, ${o.alpha})`],
+    [textEntry(`Covary: ${names.y} against ${names.x}`), ''],
+    [textEntry(`Coefficient (${METHOD_LABELS[o.method].name})`), formulaEntry(`=COVARY.COEF(${args}, ${m})`)],
+    [textEntry(`${pct} interval (lower, upper)`), formulaEntry(`=COVARY.INTERVAL(${args}, ${o.level}, ${m})`)],
+    [textEntry('p-value (two-sided)'), formulaEntry(`=COVARY.PVALUE(${args}, "both", ${m})`)],
+    [textEntry('Pairs used'), formulaEntry(`=COVARY.PAIRS(${args})`)],
+    [textEntry('Flags'), formulaEntry(`=COVARY.FLAGS(${args}, ${o.alpha})`)],
   ];
 }
 
@@ -112,25 +113,33 @@ export const REPORT_CAUTIONS = [
   'Before using this in decisions about people or money (hiring, pay, dismissal, credit, investment), check fairness and adverse-impact law where you are: local law and qualified professionals have the last word.',
 ];
 
+/** Rows the CHECKS table fills on the report sheet (a header and its eight checks). */
+const CHECKS_ROWS = 9;
+
 /**
  * The report sheet: a title, the data used, the cautions, then the COVARY.REPORT summary (spilling two columns)
- * and, beside it from column D, the COVARY.CHECKS table. References carry their sheet (the report is on a new
- * sheet).
+ * and, beside it from column D, the COVARY.CHECKS table and below that the COVARY.SENSITIVITY table (does the
+ * conclusion hold). References carry their sheet (the report is on a new sheet). Every text is entered as text
+ * (src/sheet/entries.ts), so a header that begins with "=" cannot become a formula.
  */
-export function reportSheetCells(x: ColumnRef, y: ColumnRef, names: { x: string; y: string }, o: FormulaOptions, writtenAt: Date): string[][] {
+export function reportSheetCells(x: ColumnRef, y: ColumnRef, names: { x: string; y: string }, o: FormulaOptions, writtenAt: Date): Entry[][] {
   const xr = columnReference(x, '', o.a1);
   const yr = columnReference(y, '', o.a1);
   const args = `${xr}, ${yr}`;
   const width = 4;
-  const row = (...cells: string[]): string[] => [...cells, ...Array(width - cells.length).fill('')];
+  const row = (...cells: Entry[]): Entry[] => [...cells, ...Array(width - cells.length).fill('')];
+  const t = textEntry;
   return [
-    row('Covary report'),
-    row('x', `${names.x} (${formatBlock(x.block)})`),
-    row('y', `${names.y} (${formatBlock(y.block)})`),
-    row('Written', writtenAt.toISOString().replace('T', ' ').slice(0, 16) + ' UTC'),
-    ...REPORT_CAUTIONS.map((c, i) => row(i === 0 ? 'Cautions' : '', c)),
+    row(t('Covary report')),
+    row(t('x'), t(`${names.x} (${formatBlock(x.block)})`)),
+    row(t('y'), t(`${names.y} (${formatBlock(y.block)})`)),
+    row(t('Written'), t(writtenAt.toISOString().replace('T', ' ').slice(0, 16) + ' UTC')),
+    ...REPORT_CAUTIONS.map((c, i) => row(t(i === 0 ? 'Cautions' : ''), t(c))),
     row(),
-    row('Summary', '', '', 'Assumption checks'),
-    row(`=COVARY.REPORT(${args}, ${o.level}, ${literal(o.method)})`, '', '', `=COVARY.CHECKS(${args}, ${o.alpha})`),
+    row(t('Summary'), '', '', t('Assumption checks')),
+    row(formulaEntry(`=COVARY.REPORT(${args}, ${o.level}, ${literal(o.method)})`), '', '', formulaEntry(`=COVARY.CHECKS(${args}, ${o.alpha})`)),
+    ...Array.from({ length: CHECKS_ROWS }, () => row()),
+    row('', '', '', t('Does the conclusion hold?')),
+    row('', '', '', formulaEntry(`=COVARY.SENSITIVITY(${args}, ${o.level}, ${literal(o.method)})`)),
   ];
 }

@@ -23,12 +23,15 @@ export function errorValue(error: string, message?: string): ErrorValue {
 /**
  * What a typed entry means, as a spreadsheet reads it: "=..." is a formula, numbers become numbers, TRUE/FALSE
  * become booleans, an empty entry clears the cell, anything else stays text (so "<b>" is text, never markup).
+ * A leading apostrophe marks the rest as text whatever it looks like ("'=1+1" is the text "=1+1"), as in Excel;
+ * the panel enters every text it writes that way (src/sheet/entries.ts).
  */
 export type Entry = { kind: 'formula'; text: string } | { kind: 'value'; value: Scalar };
 
 export function readEntry(typed: string | number | boolean | null): Entry {
   if (typed === null) return { kind: 'value', value: null };
   if (typeof typed !== 'string') return { kind: 'value', value: typed };
+  if (typed.startsWith("'")) return { kind: 'value', value: typed.length > 1 ? typed.slice(1) : null };
   if (typed.startsWith('=') && typed.length > 1) return { kind: 'formula', text: typed };
   const trimmed = typed.trim();
   if (trimmed === '') return { kind: 'value', value: null };

