@@ -200,7 +200,7 @@ export class RelationshipSection {
       });
     }
     fill(this.advice, [
-      el('span', { class: 'cv-advice-head', text: rec.changed ? (rec.name === 'none' ? 'No coefficient is reliable here. ' : `Consider ${rec.name} instead. `) : 'Advice: ' }),
+      el('span', { class: 'cv-advice-head', text: adviceHead(rec) }),
       el('span', { text: rec.reason }),
       use ? el('span', { text: ' ' }) : null,
       use,
@@ -224,4 +224,11 @@ export class RelationshipSection {
   destroy(): void {
     this.scatter.destroy();
   }
+}
+
+/** The advice's bold start: the remedy comes first when a row should be checked before anything else. */
+function adviceHead(rec: RelationshipView['recommendation']): string {
+  if (rec.remedy === 'check-row') return 'Check a row first. ';
+  if (!rec.changed) return 'Advice: ';
+  return rec.name === 'none' ? 'No coefficient is reliable here. ' : `Consider ${rec.name} instead. `;
 }

@@ -76,7 +76,11 @@ export class VerdictCard {
       items.push(`Bayes factor: the data are ${favour} (uniform prior on the correlation); at even prior odds that puts the chance of a correlation at ${Math.round(100 * b.posteriorProbability)}%. This is a probability of the hypothesis, which a p-value is not.`);
     }
     if (v.detectable !== null) {
-      items.push(`With ${formatCount(n)} rows a correlation of ${formatR(v.detectable)} or stronger is found 8 times in 10 (alpha ${Number((1 - level).toPrecision(3))}); weaker ones are easily missed, so "${pct} includes zero" is not "no relationship".`);
+      const d = v.detectable < 0.1 ? String(Number(v.detectable.toPrecision(2))) : formatR(v.detectable);
+      const found = `With ${formatCount(n)} rows a correlation of ${d} or stronger is found 8 times in 10 (alpha ${Number((1 - level).toPrecision(3))})`;
+      if (v.direction === 'none') items.push(`${found}; weaker ones are easily missed, so "${pct} includes zero" is not "no relationship".`);
+      else if (v.detectable < 0.1) items.push(`${found}: at this size even a trivial correlation is significant, so judge it by its size and interval, not by its p-value.`);
+      else items.push(`${found}; weaker ones are easily missed.`);
     }
     if (v.tooFew > 0) items.push(`${v.tooFew} of the eight checks had too few rows to tell: see the checks below.`);
     fill(this.evidence, items.map((t) => el('li', { text: t })));

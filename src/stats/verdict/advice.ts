@@ -177,7 +177,7 @@ export function recommendCoefficient(report: CheckReport, chosen: CorrelationRes
     return toRank(`The scatter is uneven across x (${spread.effect?.text ?? ''}), so Pearson's p-value and interval are too optimistic.`);
   }
   const slight = report.minor;
-  const slightWords = slight.length > 0 ? ` Slight departures were found (${slight.join('; ')}), too small to change the conclusion at ${n} rows.` : '';
+  const slightWords = slight.length > 0 ? ` Slight departures were found (${slight.join('; ')}), too small to change the conclusion at ${n.toLocaleString('en-US')} rows.` : '';
   if (tooFewToJudge(report)) {
     return keep(
       `With ${n} rows most of the checks cannot see whether the assumptions hold (${report.tooFew + report.notTestable} of the eight could not tell): read ${chosen.name}'s interval, not just its value, and collect more rows before a decision rests on it.${slightWords}`,

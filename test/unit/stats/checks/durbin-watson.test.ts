@@ -121,6 +121,30 @@ describe('exact tails in relative terms (mpmath at 50+ digits, test/fixtures/ver
   });
 });
 
+/**
+ * Against R 4.2.2 lmtest 0.9.40 `dwtest(y ~ x, alternative = "greater", exact = TRUE)` (Pan's algorithm; test/
+ * fixtures/verdict/durbin-watson-lmtest.R and .json) on the same series as the mpmath fixture, to relative 1e-6
+ * where pan was used. For one case (n = 150) pan returns a value outside [0, 1] and dwtest falls back to its
+ * normal approximation, which the fixture records; that case is held to the mpmath value only (above).
+ */
+describe('exact p against lmtest::dwtest', () => {
+  const MP = JSON.parse(fs.readFileSync(path.resolve(__dirname, '../../../fixtures/verdict/durbin-watson-mpmath.json'), 'utf8'));
+  const LM = JSON.parse(fs.readFileSync(path.resolve(__dirname, '../../../fixtures/verdict/durbin-watson-lmtest.json'), 'utf8'));
+  type LmCase = { name: string; n: number; d: number; p_greater: number; p_method: string };
+  const pan = (LM.cases as LmCase[]).filter((c) => c.p_method === 'pan');
+  test('pan was used for all but one case', () => {
+    expect(pan.length).toBe((LM.cases as LmCase[]).length - 1);
+  });
+  test.each(pan.map((c) => [c.name, c.n, c] as const))('%s (n = %i)', (_name, _n, c) => {
+    const series = (MP.cases as { name: string; x: string[]; y: string[] }[]).find((m) => m.name === c.name)!;
+    const x = series.x.map(Number);
+    const y = series.y.map(Number);
+    const r = durbinWatson(x, fitLine(x, y).residuals);
+    expectRel(r.statistic, c.d, 1e-12, 'd');
+    expectRel(r.pPositive, c.p_greater, 1e-6, 'p');
+  });
+});
+
 describe('above the exact range: no jump where the method changes', () => {
   // At n = DW_EXACT_MAX both methods are evaluated on the same x: the series (with the saddle point for small
   // tails) against the exact distribution, whose accuracy is held against mpmath above.
