@@ -10,14 +10,43 @@
 /** Which alternative a p-value refers to: "both" (two-sided), "positive" (rho > 0) or "negative" (rho < 0). */
 export type Tail = 'both' | 'positive' | 'negative';
 
+/** The classical coefficients, whose intervals and tests come from Fisher's z and need only r and n. */
+export type ClassicalMethod = 'pearson' | 'spearman' | 'kendall';
+
+/** Coefficients that resist outliers and heavy tails (src/stats/robust/). */
+export type RobustMethod = 'percentage_bend' | 'winsorized' | 'biweight' | 'skipped';
+
+/** Coefficients for ordered categories (src/stats/ordinal/). */
+export type OrdinalMethod = 'polychoric' | 'polyserial';
+
 /** The correlation methods a user can ask for. */
-export type Method = 'pearson' | 'spearman' | 'kendall';
+export type Method = ClassicalMethod | RobustMethod | OrdinalMethod;
 
 /** The coefficient actually reported; Pearson on two-valued columns is named point-biserial or phi. */
-export type CoefficientName = 'Pearson' | 'point-biserial' | 'phi' | 'Spearman' | 'Kendall tau-b';
+export type CoefficientName =
+  | 'Pearson' | 'point-biserial' | 'phi' | 'Spearman' | 'Kendall tau-b'
+  | 'percentage bend' | 'winsorized' | 'biweight midcorrelation' | 'skipped Pearson'
+  | 'polychoric' | 'polyserial';
 
 export const TAILS: readonly Tail[] = ['both', 'positive', 'negative'];
-export const METHODS: readonly Method[] = ['pearson', 'spearman', 'kendall'];
+export const CLASSICAL_METHODS: readonly ClassicalMethod[] = ['pearson', 'spearman', 'kendall'];
+export const ROBUST_METHODS: readonly RobustMethod[] = ['percentage_bend', 'winsorized', 'biweight', 'skipped'];
+export const ORDINAL_METHODS: readonly OrdinalMethod[] = ['polychoric', 'polyserial'];
+export const METHODS: readonly Method[] = [...CLASSICAL_METHODS, ...ROBUST_METHODS, ...ORDINAL_METHODS];
+
+export function isClassical(m: Method): m is ClassicalMethod {
+  return m === 'pearson' || m === 'spearman' || m === 'kendall';
+}
+export function isRobust(m: Method): m is RobustMethod {
+  return (ROBUST_METHODS as readonly string[]).includes(m);
+}
+export function isOrdinal(m: Method): m is OrdinalMethod {
+  return m === 'polychoric' || m === 'polyserial';
+}
+
+/** How a two-sided interval is made: Fisher's z (classical coefficients), or a bootstrap of the rows. */
+export type IntervalMethod = 'fisher' | 'percentile' | 'bca';
+export const INTERVAL_METHODS: readonly IntervalMethod[] = ['fisher', 'percentile', 'bca'];
 
 /** The words for each method, used by every layer (cell answers, the report, the panel, written formulas). */
 export interface MethodLabel {
@@ -35,6 +64,12 @@ export const METHOD_LABELS: Record<Method, MethodLabel> = {
   pearson: { name: 'Pearson', symbol: 'r', glyph: 'r', gist: 'straight line' },
   spearman: { name: 'Spearman', symbol: 'rho', glyph: 'ρ', gist: 'rank order' },
   kendall: { name: 'Kendall', symbol: 'tau-b', glyph: 'τ-b', gist: 'rank agreement' },
+  percentage_bend: { name: 'Percentage bend', symbol: 'r_pb', glyph: 'r_pb', gist: 'resists outliers' },
+  winsorized: { name: 'Winsorized', symbol: 'r_w', glyph: 'r_w', gist: 'tails pulled in' },
+  biweight: { name: 'Biweight', symbol: 'r_bw', glyph: 'r_bw', gist: 'outliers down-weighted' },
+  skipped: { name: 'Skipped', symbol: 'r_skip', glyph: 'r_skip', gist: 'outlying rows set aside' },
+  polychoric: { name: 'Polychoric', symbol: 'rho_pc', glyph: 'ρ_pc', gist: 'two rating scales' },
+  polyserial: { name: 'Polyserial', symbol: 'rho_ps', glyph: 'ρ_ps', gist: 'rating scale and measure' },
 };
 
 export interface Interval {
@@ -46,6 +81,8 @@ export interface Interval {
   method: string;
   /** Why the bounds are NaN, when they are (too few rows, perfect rank agreement). */
   note?: string;
+  /** Bootstrap intervals: the number of resamples behind the bounds. */
+  replicates?: number;
 }
 
 /** The statistic behind a p-value. */
@@ -74,6 +111,10 @@ export interface TestResult {
 /** The result of one correlation test. */
 export interface CorrelationResult extends TestResult {
   name: CoefficientName;
+  /** The skipped correlation's set-aside rows, 0-based positions in the columns it was given. */
+  skippedRows?: number[];
+  /** Anything the reader must know about how this coefficient was reached (a cap, a fallback). */
+  note?: string;
 }
 
 /** Error codes of the core's input validation; the cell layer maps them to host errors. */

@@ -8,7 +8,8 @@ import { pFromT, tFromR } from '../correlation/fisher';
 import { benjaminiHochbergAdjust, holmAdjust } from './p-adjust';
 import { assertVaries, clipUnit, pearsonFromMoments } from '../correlation/pearson';
 import { averageRanks } from '../correlation/ranks';
-import { Method, StatsInputError } from '../types';
+import { isRobust, Method, METHOD_LABELS, StatsInputError } from '../types';
+import { replicatesFor } from '../robust/robust';
 
 /** What a matrix cell can show. */
 export type MatrixShow = 'coef' | 'pvalue' | 'pvalue_holm' | 'pvalue_fdr' | 'pairs';
@@ -61,8 +62,17 @@ export const MATRIX_LIMITS = {
 };
 
 /** Predicted microseconds for one pair over `rows` rows. */
-function pairMicroseconds(kind: 'linear' | 'sorted', rows: number): number {
+type CostKind = 'linear' | 'sorted' | 'robust' | 'skipped';
+
+function pairMicroseconds(kind: CostKind, rows: number): number {
   if (kind === 'linear') return 10 + 0.03 * rows;
+  // Two sorts and a few passes; the skipped rule projects every row on up to 100 directions, and below
+  // about 750 rows re-finds its outliers in each of the bootstrap's resamples (src/stats/robust/robust.ts).
+  if (kind === 'robust') return 100 + 0.8 * rows;
+  if (kind === 'skipped') {
+    const once = 0.02 * rows * Math.min(rows, 100);
+    return 100 + (rows * Math.min(rows, 100) * replicatesFor(rows) <= 3e8 ? once * (1 + replicatesFor(rows)) : once + 0.1 * rows * replicatesFor(rows));
+  }
   // argsort (internal/sort.ts) sorts by comparison below 64 keys and by 11-bit radix passes from 64 on.
   return rows < 64 ? 25 + 0.5 * rows : 40 + 0.25 * rows;
 }
@@ -72,7 +82,7 @@ export function predictedMatrixMs(linearPairs: number, sortedPairs: number, rows
   return (linearPairs * pairMicroseconds('linear', rows) + sortedPairs * pairMicroseconds('sorted', rows)) / 1e3;
 }
 
-function tooLarge(columns: number, rows: number, method: Method, kind: 'linear' | 'sorted'): StatsInputError {
+function tooLarge(columns: number, rows: number, method: Method, kind: CostKind): StatsInputError {
   const pairs = (columns * (columns - 1)) / 2;
   // Largest row count within budget for this many columns (cost rises with rows: bisection).
   let lo = 0;
@@ -82,7 +92,7 @@ function tooLarge(columns: number, rows: number, method: Method, kind: 'linear' 
     if ((pairs * pairMicroseconds(kind, mid)) / 1e3 <= MATRIX_LIMITS.budgetMs) lo = mid;
     else hi = mid;
   }
-  const name = method.charAt(0).toUpperCase() + method.slice(1);
+  const name = METHOD_LABELS[method].name;
   return new StatsInputError(
     'too-large',
     `a ${name} matrix of ${columns} columns and ${rows.toLocaleString('en-US')} rows is too much to compute promptly: ` +
@@ -104,9 +114,16 @@ export function assertMatrixFits(columns: number, rows: number, method: Method):
     );
   }
   const pairs = (columns * (columns - 1)) / 2;
-  const kind = method === 'kendall' ? 'sorted' : 'linear';
-  const ms = kind === 'sorted' ? predictedMatrixMs(0, pairs, rows) : predictedMatrixMs(pairs, 0, rows);
+  const kind = costKind(method);
+  const ms = (pairs * pairMicroseconds(kind, rows)) / 1e3;
   if (ms > MATRIX_LIMITS.budgetMs) throw tooLarge(columns, rows, method, kind);
+}
+
+function costKind(method: Method): CostKind {
+  if (method === 'kendall') return 'sorted';
+  if (method === 'skipped') return 'skipped';
+  if (isRobust(method)) return 'robust';
+  return 'linear';
 }
 
 /** Pearson-type p-value text per method, for the result's pMethod. */
@@ -114,6 +131,12 @@ const P_METHOD: Record<Method, string> = {
   pearson: 't test, df = n - 2, two-sided',
   spearman: 't approximation, df = n - 2, two-sided',
   kendall: 'exact null distribution of S without ties and n < 50, else normal approximation; two-sided',
+  percentage_bend: 't test, df = n - 2, two-sided (Wilcox 1994)',
+  winsorized: 't test, df = n - 2g - 2, two-sided (Wilcox 1993)',
+  biweight: 't test, df = n - 2, two-sided',
+  skipped: 'bootstrap share of resamples beyond 0 with outliers re-found in each (t test on kept rows above about 750 rows), two-sided',
+  polychoric: 'likelihood-ratio test of rho = 0, two-sided',
+  polyserial: 'likelihood-ratio test of rho = 0, two-sided',
 };
 
 /** One pair's coefficient and two-sided p-value. */
@@ -208,7 +231,7 @@ export function correlationMatrix(columns: ArrayLike<number>[], method: Method, 
           }
           const x = bufX.subarray(0, m);
           const y = bufY.subarray(0, m);
-          const res = correlate(x, y, { method, tail: 'both', level: 0.95 });
+          const res = correlate(x, y, { method, tail: 'both', level: 0.95, interval: 'none' });
           answer = { r: res.statistic, p: res.pValue };
         }
       } catch (e) {

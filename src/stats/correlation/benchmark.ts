@@ -5,7 +5,7 @@
 import { normalSf } from '../distributions';
 import { validAlpha, validTail } from '../options';
 import { Interval, Method, StatsInputError, Tail } from '../types';
-import { fisherStandardError } from './correlate';
+import { classicalOnly, fisherStandardError } from './correlate';
 import { fisherInterval, pFromZ } from './fisher';
 
 /** The test of rho = rho0 (a benchmark other than zero). */
@@ -27,7 +27,7 @@ export interface BenchmarkTest {
 export function testAgainst(r: number, n: number, method: Method, rho0: number, tail: Tail): BenchmarkTest {
   validTail(tail);
   if (!(Math.abs(rho0) < 1)) throw new StatsInputError('out-of-range', `against must lie strictly between -1 and 1 (got ${rho0})`);
-  const se = fisherStandardError(method, rho0, n);
+  const se = fisherStandardError(classicalOnly(method, 'a test against a benchmark'), rho0, n);
   if (!Number.isFinite(se)) throw new StatsInputError('too-few', `only ${n} pairs: a test against ${rho0} needs at least ${method === 'kendall' ? 5 : 4}`);
   const z = (Math.atanh(r) - Math.atanh(rho0)) / se;
   return { against: rho0, z, pValue: pFromZ(z, tail), tail, pMethod: `Fisher z test of rho = ${rho0}` };
@@ -67,7 +67,7 @@ export function equivalenceTest(r: number, n: number, method: Method, bound: num
   if (!(alpha < 0.5)) throw new StatsInputError('out-of-range', `alpha must be below 0.5 for an equivalence test (got ${alpha})`);
   if (!(bound > 0 && bound < 1)) throw new StatsInputError('out-of-range', `bound must lie strictly between 0 and 1, e.g. 0.1 (got ${bound})`);
   if (!(Math.abs(r) < 1)) throw new StatsInputError('out-of-range', 'the correlation is perfect, so it cannot be negligible');
-  const se = fisherStandardError(method, r, n);
+  const se = fisherStandardError(classicalOnly(method, 'an equivalence test'), r, n);
   if (!Number.isFinite(se)) throw new StatsInputError('too-few', `only ${n} pairs: an equivalence test needs at least ${method === 'kendall' ? 5 : 4}`);
   const z = Math.atanh(r);
   const b = Math.atanh(bound);

@@ -5,13 +5,28 @@ import { PreparedPairs } from './prepared';
 import { fisherInterval, pFromT, pFromZ, tFromR } from './fisher';
 import { validTestOptions } from '../options';
 import { SPEARMAN_EDGEWORTH_MAX_N, spearmanTails } from './spearman-exact';
-import { CoefficientName, CorrelationResult, Interval, Method, StatsInputError, Tail, TestResult, TestStatistic } from '../types';
+import { ClassicalMethod, CoefficientName, CorrelationResult, Interval, IntervalMethod, isClassical, isRobust, Method, METHOD_LABELS, StatsInputError, Tail, TestResult, TestStatistic } from '../types';
+import type { ResampleSource } from '../bootstrap/bootstrap';
+import { bootstrapInterval, correlateRobust } from '../robust/robust';
+import { correlateOrdinal } from '../ordinal/correlate-ordinal';
 
 export interface CorrelateOptions {
   method: Method;
   tail: Tail;
   /** Confidence level of the two-sided interval, in (0, 1). */
   level: number;
+  /** How the interval is made: Fisher z by default for the classical coefficients, the percentile bootstrap for the robust ones. */
+  interval?: IntervalMethod | 'none';
+  /** Bootstrap resamples from elsewhere (tests); by default drawn by the generator seeded from the data. */
+  resamples?: ResampleSource;
+  /** Bootstrap progress: replicates done of all. */
+  onProgress?: (done: number, of: number) => void;
+}
+
+/** A method that needs only r and n for its interval and test: a classical one, else a clear error. */
+export function classicalOnly(method: Method, what: string): ClassicalMethod {
+  if (isClassical(method)) return method;
+  throw new StatsInputError('bad-option', `${what} works from r and n with Fisher's z, which holds for Pearson, Spearman and Kendall only, not for ${METHOD_LABELS[method].name.toLowerCase()}`);
 }
 
 /** Pearson on two-valued columns is the point-biserial (one column two-valued) or phi (both) coefficient. */
@@ -24,7 +39,7 @@ export function pearsonName(x: ArrayLike<number>, y: ArrayLike<number>): Coeffic
 }
 
 /** Fisher-z standard errors by method; NaN when n is too small for the interval. */
-export function fisherStandardError(method: Method, r: number, n: number): number {
+export function fisherStandardError(method: ClassicalMethod, r: number, n: number): number {
   switch (method) {
     case 'pearson':
       // Fisher (1921), Metron 1:3-32: var(atanh r) ~ 1/(n - 3).
@@ -39,7 +54,7 @@ export function fisherStandardError(method: Method, r: number, n: number): numbe
   }
 }
 
-const INTERVAL_METHOD: Record<Method, string> = {
+const INTERVAL_METHOD: Record<ClassicalMethod, string> = {
   pearson: 'Fisher z, SE = 1/sqrt(n - 3)',
   spearman: 'Fisher z, SE = sqrt((1 + r^2/2)/(n - 3)) (Bonett & Wright 2000)',
   kendall: 'Fisher z, SE = sqrt(0.437/(n - 4)) (Fieller, Hartley & Pearson 1957)',
@@ -50,7 +65,7 @@ const INTERVAL_METHOD: Record<Method, string> = {
  * ranks that agree (or disagree) perfectly, where the Fisher-z interval of a rank coefficient would have zero
  * width, which no sample of rankings can justify (the exact p-value still says how unlikely such agreement is).
  */
-export function correlationInterval(method: Method, r: number, n: number, level: number): Interval {
+export function correlationInterval(method: ClassicalMethod, r: number, n: number, level: number): Interval {
   const se = fisherStandardError(method, r, n);
   if (!Number.isFinite(se)) {
     return { lower: NaN, upper: NaN, level, method: INTERVAL_METHOD[method], note: `an interval needs at least ${method === 'kendall' ? 5 : 4} pairs` };
@@ -154,8 +169,19 @@ export function correlate(x: ArrayLike<number>, y: ArrayLike<number>, opts: Corr
 
 /** As correlate, on prepared columns whose ranks, counts and moments are shared with other callers. */
 export function correlatePrepared(prep: PreparedPairs, opts: CorrelateOptions): CorrelationResult {
-  const { x, y, n } = prep;
   const { method, tail, level } = validTestOptions(opts);
+  if (isRobust(method)) return correlateRobust(prep, { ...opts, method });
+  if (!isClassical(method)) return correlateOrdinal(prep, { ...opts, method });
+  const result = correlateClassical(prep, method, tail, level);
+  const kind = opts.interval ?? 'fisher';
+  if (kind === 'fisher' || kind === 'none') return result;
+  const boot = bootstrapInterval(prep, method, result.statistic, { level, kind, resamples: opts.resamples, onProgress: opts.onProgress });
+  const { values: _values, ...interval } = boot;
+  return { ...result, interval };
+}
+
+function correlateClassical(prep: PreparedPairs, method: ClassicalMethod, tail: Tail, level: number): CorrelationResult {
+  const { x, y, n } = prep;
   if (n < 3) throw new StatsInputError('too-few', `only ${n} usable pairs: at least 3 are needed`);
   if (method === 'kendall') {
     assertVaries(prep.moments);
@@ -205,7 +231,8 @@ export type ReportedResult = TestResult;
  * @throws StatsInputError when |r| >= 1 or n < 4 (n < 5 for Kendall, whose interval needs n - 4 > 0).
  */
 export function checkReported(r: number, n: number, opts: CorrelateOptions): ReportedResult {
-  const { method, tail, level } = validTestOptions(opts);
+  const { tail, level } = validTestOptions(opts);
+  const method = classicalOnly(opts.method, 'checking a reported correlation');
   if (!(Math.abs(r) < 1)) throw new StatsInputError('out-of-range', `r must lie strictly between -1 and 1 (got ${r})`);
   if (!(n >= 4) || !Number.isInteger(n)) throw new StatsInputError('out-of-range', `n must be a whole number of at least 4 (got ${n})`);
   if (method === 'kendall' && n < 5) throw new StatsInputError('out-of-range', 'n must be at least 5 for Kendall\'s interval');

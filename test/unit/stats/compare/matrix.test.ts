@@ -5,7 +5,6 @@
 import { correlate } from '../../../../src/stats/correlation/correlate';
 import { correlationMatrix } from '../../../../src/stats/compare/matrix';
 import { benjaminiHochbergAdjust, holmAdjust } from '../../../../src/stats/compare/p-adjust';
-import { Method } from '../../../../src/stats/types';
 import { expectRel } from '../../../helpers/close';
 import { R, Region, withNaN } from './fixtures';
 
@@ -26,7 +25,7 @@ describe('p-value adjustment (R p.adjust)', () => {
 
 describe('correlation matrix, pairwise-complete rows (R cor.test + p.adjust)', () => {
   const columns = NAMES.map((c) => withNaN(R.data.north[c]));
-  test.each(['pearson', 'spearman', 'kendall'] as Method[])('%s', (method) => {
+  test.each(['pearson', 'spearman', 'kendall'] as const)('%s', (method) => {
     const ref = R.matrix[method];
     const res = correlationMatrix(columns, method, NAMES);
     const k = NAMES.length;
