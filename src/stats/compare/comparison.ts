@@ -6,7 +6,8 @@ import { fisherInterval } from '../correlation/fisher';
 import { coMoments } from '../correlation/comoments';
 import { assertVaries, pearsonFromMoments } from '../correlation/pearson';
 import { validTestOptions } from '../options';
-import { StatsInputError, Tail, TestResult } from '../types';
+import { Method, StatsInputError, Tail, TestResult } from '../types';
+import type { ResampleSource } from '../bootstrap/bootstrap';
 import type { Interval } from '../types';
 
 /** Which study design a comparison is for. */
@@ -40,6 +41,10 @@ export interface ComparisonOptions {
   tail: Tail;
   /** Confidence level of the two-sided interval, in (0, 1). */
   level: number;
+  /** The coefficient compared; Pearson by default. */
+  method?: Method;
+  /** Bootstrap resamples from elsewhere (tests); by default drawn by the generator seeded from the data. */
+  resamples?: ResampleSource;
 }
 
 /** The smallest sample a comparison accepts: Fisher's z needs n - 3 > 0. */

@@ -1,3 +1,4 @@
+import { compareSeparateByBootstrap } from './dependent-bootstrap';
 import {
   assertComparisonOptions,
   assertClosedUnit,
@@ -120,6 +121,7 @@ export function compareSeparateSamples(
     throw new StatsInputError('unequal-length', 'a, b, c and d must hold the same number of values');
   }
   requireRows(n, 'the data');
+  if (opts.method !== undefined && opts.method !== 'pearson') return compareSeparateByBootstrap(a, b, c, d, opts.method, opts);
   return compareSeparate(
     {
       rjk: comparablePearson(a, b, 'a', 'b'),

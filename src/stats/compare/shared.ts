@@ -1,3 +1,4 @@
+import { compareSharedByBootstrap } from './dependent-bootstrap';
 import {
   assertComparisonOptions,
   assertOpenUnit,
@@ -113,6 +114,7 @@ export function compareSharedSamples(
   const n = common.length;
   if (a.length !== n || b.length !== n) throw new StatsInputError('unequal-length', 'common, a and b must hold the same number of values');
   requireRows(n, 'the data');
+  if (opts.method !== undefined && opts.method !== 'pearson') return compareSharedByBootstrap(common, a, b, opts.method, opts);
   return compareShared(
     {
       rjk: comparablePearson(common, a, 'common', 'a'),

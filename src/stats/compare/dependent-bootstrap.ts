@@ -1,0 +1,115 @@
+import { percentileBounds, replicate, ResampleSource, seededResamples } from '../bootstrap/bootstrap';
+import { seedFromData } from '../bootstrap/rng';
+import { correlatePrepared } from '../correlation/correlate';
+import { PreparedPairs } from '../correlation/prepared';
+import { replicatesFor, weightedStatistic } from '../robust/robust';
+import { isOrdinal, Method, METHOD_LABELS, StatsInputError, Tail } from '../types';
+import { ComparisonDesign, ComparisonOptions, ComparisonResult, requireRows } from './comparison';
+
+/** Two correlations on the same rows, as two prepared pairs of columns. */
+interface SameRowsPairs {
+  design: Exclude<ComparisonDesign, 'independent'>;
+  first: PreparedPairs;
+  second: PreparedPairs;
+  /** The columns behind the seed. */
+  columns: ArrayLike<number>[];
+}
+
+/** Twice the smaller share of replicates on either side of 0 (two-sided), or the one share a tail asks for. */
+export function bootstrapShareP(values: Float64Array, tail: Tail): { p: number; finite: number } {
+  let atOrBelow = 0;
+  let atOrAbove = 0;
+  let finite = 0;
+  for (const v of values) {
+    if (!Number.isFinite(v)) continue;
+    finite++;
+    if (v <= 0) atOrBelow++;
+    if (v >= 0) atOrAbove++;
+  }
+  const lower = atOrBelow / finite;
+  const upper = atOrAbove / finite;
+  const p = tail === 'positive' ? lower : tail === 'negative' ? upper : Math.min(1, 2 * Math.min(lower, upper));
+  return { p, finite };
+}
+
+/**
+ * The difference of two correlations measured on the same rows, for any coefficient other than Pearson (whose
+ * closed forms are in shared.ts and separate.ts): the rows are resampled together, both coefficients recomputed
+ * on each resample (Efron 1979), the interval is the percentile interval of the differences, and the p-value
+ * twice the smaller share of differences on either side of 0 (the test that inverts that interval; Wilcox 2012,
+ * section 9.4, compares dependent robust correlations this way). Resamples are seeded from the data, so the same
+ * cells always give the same answer.
+ */
+function compareByBootstrap(pairs: SameRowsPairs, method: Method, opts: ComparisonOptions): ComparisonResult {
+  if (isOrdinal(method)) throw new StatsInputError('bad-option', `comparisons of ${method} correlations are not offered: compare Spearman coefficients instead`);
+  const { first, second } = pairs;
+  const n = first.n;
+  requireRows(n, 'the data');
+  const r1 = correlatePrepared(first, { method, tail: 'both', level: opts.level, interval: 'none' }).statistic;
+  const r2 = correlatePrepared(second, { method, tail: 'both', level: opts.level, interval: 'none' }).statistic;
+  const s1 = weightedStatistic(first, method);
+  const s2 = weightedStatistic(second, method);
+  const B = opts.resamples?.replicates ?? replicatesFor(2 * n, method); // two coefficients per resample
+  const source: ResampleSource = opts.resamples ?? seededResamples(n, B, seedFromData(...pairs.columns));
+  const values = replicate((w, total) => s1(w, total) - s2(w, total), n, source);
+  const bounds = percentileBounds(values, opts.level);
+  const d = r1 - r2;
+  const { p, finite } = bootstrapShareP(values, opts.tail);
+  if (finite === 0) throw new StatsInputError('constant', 'no resample gave both coefficients: a column is nearly constant');
+  return {
+    design: pairs.design, method, n, r1, r2, statistic: d, pValue: p, tail: opts.tail,
+    interval: {
+      lower: Math.min(bounds.lower, d), upper: Math.max(bounds.upper, d), level: opts.level, replicates: B, note: bounds.note,
+      method: `percentile bootstrap of the difference, B = ${B} resamples of the rows${opts.resamples ? '' : ', seeded from the data'}`,
+    },
+    test: { name: 'z', value: NaN },
+    pMethod: `bootstrap: twice the smaller share of ${finite} resampled differences on either side of 0 (${METHOD_LABELS[method].name})`,
+    n1: n, n2: n, estimateCorrelation: NaN,
+  };
+}
+
+/** r(common, a) - r(common, b) for a coefficient without a closed-form comparison. */
+export function compareSharedByBootstrap(common: ArrayLike<number>, a: ArrayLike<number>, b: ArrayLike<number>, method: Method, opts: ComparisonOptions): ComparisonResult {
+  return compareByBootstrap({ design: 'shared', first: new PreparedPairs(common, a), second: new PreparedPairs(common, b), columns: [common, a, b] }, method, opts);
+}
+
+/** r(a, b) - r(c, d) for a coefficient without a closed-form comparison. */
+export function compareSeparateByBootstrap(a: ArrayLike<number>, b: ArrayLike<number>, c: ArrayLike<number>, d: ArrayLike<number>, method: Method, opts: ComparisonOptions): ComparisonResult {
+  return compareByBootstrap({ design: 'separate', first: new PreparedPairs(a, b), second: new PreparedPairs(c, d), columns: [a, b, c, d] }, method, opts);
+}
+
+/**
+ * Two robust coefficients from independent groups: each group resampled on its own (Efron 1979), the difference
+ * recomputed B times; the percentile interval of the differences and twice the smaller share on either side of 0
+ * (Wilcox 2012, section 9.4, compares two independent correlations by this percentile bootstrap). Seeds come from
+ * each group's data.
+ */
+export function compareIndependentByBootstrap(
+  x1: ArrayLike<number>, y1: ArrayLike<number>, x2: ArrayLike<number>, y2: ArrayLike<number>, method: Method, opts: ComparisonOptions,
+): ComparisonResult {
+  if (isOrdinal(method)) throw new StatsInputError('bad-option', `comparisons of ${method} correlations are not offered: compare Spearman coefficients instead`);
+  const g1 = new PreparedPairs(x1, y1);
+  const g2 = new PreparedPairs(x2, y2);
+  const n1 = g1.n;
+  const n2 = g2.n;
+  const r1 = correlatePrepared(g1, { method, tail: 'both', level: opts.level, interval: 'none' }).statistic;
+  const r2 = correlatePrepared(g2, { method, tail: 'both', level: opts.level, interval: 'none' }).statistic;
+  const B = replicatesFor(n1 + n2, method);
+  const t1 = replicate(weightedStatistic(g1, method), n1, seededResamples(n1, B, seedFromData(x1, y1)));
+  const t2 = replicate(weightedStatistic(g2, method), n2, seededResamples(n2, B, seedFromData(x2, y2)));
+  const values = new Float64Array(B);
+  for (let b = 0; b < B; b++) values[b] = t1[b] - t2[b];
+  const bounds = percentileBounds(values, opts.level);
+  const d = r1 - r2;
+  const { p, finite } = bootstrapShareP(values, opts.tail);
+  return {
+    design: 'independent', method, n: n1 + n2, r1, r2, statistic: d, pValue: p, tail: opts.tail,
+    interval: {
+      lower: Math.min(bounds.lower, d), upper: Math.max(bounds.upper, d), level: opts.level, replicates: B, note: bounds.note,
+      method: `percentile bootstrap of the difference, B = ${B} resamples of each group, seeded from the data`,
+    },
+    test: { name: 'z', value: NaN },
+    pMethod: `bootstrap: twice the smaller share of ${finite} resampled differences on either side of 0 (${METHOD_LABELS[method].name})`,
+    n1, n2, estimateCorrelation: 0,
+  };
+}
