@@ -6,10 +6,10 @@
  */
 import type { CheckKey, CheckReport, CheckRow } from '../checks/check-report';
 import { formatNumber as num } from '../format';
-import { CorrelationResult, Method, METHOD_LABELS } from '../types';
+import { CorrelationResult, isOrdinal, isRobust, Method, METHOD_LABELS } from '../types';
 
 /** The remedy an advice names, for the panel's buttons and the tests. */
-export type Remedy = 'check-row' | 'collect-across-x' | 'rank' | 'effective-rows' | 'log' | 'more-rows' | null;
+export type Remedy = 'check-row' | 'collect-across-x' | 'rank' | 'robust' | 'ordinal' | 'effective-rows' | 'log' | 'more-rows' | null;
 
 /** What to report instead (or as well), and why. */
 export interface Recommendation {
@@ -23,6 +23,16 @@ export interface Recommendation {
   reason: string;
   /** The main remedy named, if any. */
   remedy: Remedy;
+}
+
+/** What recommendCoefficient may also know about the data. */
+export interface AdviceContext {
+  /** Both columns look like rating-scale items (few whole-number categories; src/stats/ordinal/categories.ts). */
+  ratingScales?: boolean;
+  /** The percentage bend correlation on the same rows, to say how far a robust coefficient moves from Pearson. */
+  robust?: number;
+  /** Pearson's r on the same rows. */
+  pearson?: number;
 }
 
 /** Cohen's (1988) words for the size of a correlation: .1 small, .3 medium, .5 large. */
@@ -99,24 +109,37 @@ export function tooFewToJudge(report: CheckReport): boolean {
  * texts, e.g. Wilcox 2017, Introduction to Robust Estimation and Hypothesis Testing, 4th ed., ch. 9: rank
  * coefficients resist single points and need no normal shape; none repairs dependence between rows or a curve
  * that turns back). In order:
+ * - both columns rating-scale items: the polychoric correlation (Olsson 1979);
  * - one point sets the slope: no coefficient is reliable; collect data across x;
  * - an outlier whose value is far outside its column: check that row for a data-entry error first;
  * - neighbouring rows alike: keep the coefficient, but read the p-value and interval with the effective rows
  *   (Pyper & Peterman 1998) or correlate the changes from row to row; a rank coefficient fixes neither;
  * - a curve: a rank coefficient, which follows any steadily rising or falling pattern;
- * - an outlier, a row the conclusion rests on, or a strongly non-normal shape: a rank coefficient;
+ * - an outlier, a row the conclusion rests on, or a strongly non-normal shape: the percentage bend correlation
+ *   (Wilcox 1994), saying how far it moves from Pearson; a rank or robust coefficient already chosen is kept;
  * - uneven spread: the logarithm of y when y is positive and the spread widens with x, else a rank coefficient;
  * - (a rank coefficient is Kendall's tau-b below 25 pairs, Spearman's rho otherwise; a rank coefficient already
  *   chosen is kept);
  * - nothing serious, but too few rows for the checks to see: collect more rows before relying on the result;
  * - only slight departures, or none: the coefficient as it stands.
  */
-export function recommendCoefficient(report: CheckReport, chosen: CorrelationResult, yAllPositive = false): Recommendation {
+export function recommendCoefficient(report: CheckReport, chosen: CorrelationResult, yAllPositive = false, context: AdviceContext = {}): Recommendation {
   const n = report.n;
   const rankName = n < KENDALL_BELOW_N ? 'Kendall tau-b' : 'Spearman';
   const rankMethod: Method = n < KENDALL_BELOW_N ? 'kendall' : 'spearman';
   const rankWhy = n < KENDALL_BELOW_N ? ` (Kendall's tau-b suits fewer than ${KENDALL_BELOW_N} pairs)` : '';
-  const chosenIsRank = chosen.method !== 'pearson';
+  const chosenIsRank = chosen.method === 'spearman' || chosen.method === 'kendall';
+  const chosenIsRobust = chosenIsRank || isRobust(chosen.method);
+  const moved = context.robust !== undefined && context.pearson !== undefined
+    ? ` On these rows it gives r_pb = ${num(context.robust)} against Pearson's r = ${num(context.pearson)}${Math.abs(context.robust - context.pearson) < 0.05 ? ', close enough that the outlying values do not change the picture' : `, a shift of ${num(Math.abs(context.robust - context.pearson))}`}.`
+    : '';
+  const toRobust = (reason: string, remedy: Remedy = 'robust'): Recommendation =>
+    chosenIsRobust
+      ? { name: chosen.name, method: chosen.method, changed: false, reason: `${reason} ${capital(chosen.name)} (as chosen) ${chosenIsRank ? 'is a rank coefficient and ' : ''}resists it.`, remedy }
+      : {
+        name: 'percentage bend', method: 'percentage_bend', changed: true, remedy,
+        reason: `${reason} The percentage bend correlation (Wilcox 1994) caps the pull of the most extreme 20% of each column and comes with a bootstrap interval; a rank coefficient${rankWhy} also resists it.${moved}`,
+      };
   const keep = (reason: string, remedy: Remedy): Recommendation => ({ name: chosen.name, method: chosen.method, changed: false, reason, remedy });
   const toRank = (reason: string, remedy: Remedy = 'rank'): Recommendation =>
     chosenIsRank
@@ -137,12 +160,19 @@ export function recommendCoefficient(report: CheckReport, chosen: CorrelationRes
       reason: `${capital(infl.flag ?? 'one point sets the slope')}: every coefficient, rank-based ones included, rests on that point, so collect data across the range of x before reading a correlation.${orderWords}`,
     };
   }
+  if (context.ratingScales && !isOrdinal(chosen.method) && chosen.name !== 'phi') {
+    const rec: Recommendation = {
+      name: 'polychoric', method: 'polychoric', changed: true, remedy: 'ordinal',
+      reason: 'Both columns look like rating-scale items (a few whole-number categories): the polychoric correlation (Olsson 1979) estimates the correlation of the continuous attitudes behind the ratings, which Pearson on category numbers understates; Spearman or Kendall tau-b suits a purely rank-order reading.',
+    };
+    return rec;
+  }
   if (chosen.name === 'phi') {
     return keep(`Both columns take two values, so phi (Pearson on a 2 x 2 table) is the usual coefficient and the shape checks do not apply.${orderWords}`, order ? 'effective-rows' : null);
   }
   const outlier = rowOf(report, 'outliers');
   if (outlier.verdict === 'problem' && outlier.detail.farOut === 1) {
-    const rec = toRank(`Check ${outlier.place} for a data-entry error first: its value lies far outside the rest of its column (more than three interquartile ranges beyond the quartiles, Tukey 1977), and ${outlier.effect?.text ?? 'it moves r'}. If the value is right,`);
+    const rec = toRobust(`Check ${outlier.place} for a data-entry error first: its value lies far outside the rest of its column (more than three interquartile ranges beyond the quartiles, Tukey 1977), and ${outlier.effect?.text ?? 'it moves r'}. If the value is right, report a coefficient that resists it.`);
     return { ...rec, reason: `${rec.reason}${orderWords}`, remedy: 'check-row' };
   }
   if (order) {
@@ -164,7 +194,7 @@ export function recommendCoefficient(report: CheckReport, chosen: CorrelationRes
     const also = causes.length > 0 ? ` Also, ${causes.join('; ')}.` : '';
     return toRank(`The points bend away from a straight line, which Pearson's r measures only in part; a coefficient that follows any steadily rising or falling pattern fits better, but if the curve turns back no single coefficient describes it.${also}`);
   }
-  if (causes.length > 0) return toRank(`${capital(causes.join('; '))}.`);
+  if (causes.length > 0) return toRobust(`${capital(causes.join('; '))}.`);
   const spread = rowOf(report, 'even-spread');
   if (spread.verdict === 'problem') {
     const widens = spread.detail.widensUpward === 1;

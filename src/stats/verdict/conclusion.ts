@@ -10,9 +10,10 @@ import { equivalenceTest, EquivalenceResult } from '../correlation/benchmark';
 import { correlatePrepared } from '../correlation/correlate';
 import { PreparedPairs } from '../correlation/prepared';
 import { detectableCorrelation, MAX_PLANNING_N } from '../planning/power';
-import { CorrelationResult, Method } from '../types';
+import { CorrelationResult, IntervalMethod, Method } from '../types';
 import { plainReading, recommendCoefficient, Recommendation } from './advice';
 import { sensitivity, Sensitivity } from './sensitivity';
+import { looksOrdinal } from '../ordinal/categories';
 
 /** The equivalence bound used when none is asked for: |rho| < 0.1, below Cohen's (1988) "small". */
 export const NEGLIGIBLE_BOUND = 0.1;
@@ -33,15 +34,23 @@ export interface Conclusion {
 export interface ConclusionOptions {
   method: Method;
   level: number;
+  /** How the coefficient's interval is made (its default when omitted). */
+  interval?: IntervalMethod;
   name: (i: number) => string;
 }
 
 export function conclude(prepared: PreparedPairs, report: CheckReport, opts: ConclusionOptions): Conclusion {
-  const correlation = correlatePrepared(prepared, { method: opts.method, tail: 'both', level: opts.level });
+  const correlation = correlatePrepared(prepared, { method: opts.method, tail: 'both', level: opts.level, interval: opts.interval });
   let yAllPositive = true;
   for (let i = 0; i < prepared.n && yAllPositive; i++) if (!(prepared.y[i] > 0)) yAllPositive = false;
-  const recommendation = recommendCoefficient(report, correlation, yAllPositive);
-  const sens = sensitivity(prepared, report, opts);
+  const sens = sensitivity(prepared, report, { ...opts, main: correlation });
+  const robustRow = sens.rows.find((r) => r.scenario === 'robust coefficient');
+  const pearson = opts.method === 'pearson' ? correlation.statistic : undefined;
+  const recommendation = recommendCoefficient(report, correlation, yAllPositive, {
+    ratingScales: looksOrdinal(prepared.x) && looksOrdinal(prepared.y),
+    robust: robustRow?.statistic,
+    pearson: pearson ?? (robustRow ? correlatePrepared(prepared, { method: 'pearson', tail: 'both', level: opts.level }).statistic : undefined),
+  });
   const n = prepared.n;
   const alpha = 1 - opts.level;
   let equivalence: EquivalenceResult | null = null;

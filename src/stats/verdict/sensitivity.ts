@@ -8,11 +8,11 @@ import { correlate, correlatePrepared, fisherStandardError } from '../correlatio
 import { fisherInterval, pFromT, tFromR } from '../correlation/fisher';
 import { PreparedPairs } from '../correlation/prepared';
 import { formatNumber as num } from '../format';
-import { CorrelationResult, Method } from '../types';
-import { tooFewToJudge } from './advice';
+import { CorrelationResult, isClassical, isRobust, Method } from '../types';
+import { listWords, tooFewToJudge } from './advice';
 
 /** The alternatives tried. */
-export type Scenario = 'as computed' | 'rank coefficient' | 'without the most influential row' | 'without the flagged rows' | 'effective rows';
+export type Scenario = 'as computed' | 'rank coefficient' | 'robust coefficient' | 'without the most influential row' | 'without the flagged rows' | 'effective rows';
 
 export interface SensitivityRow {
   scenario: Scenario;
@@ -52,6 +52,8 @@ export interface SensitivityOptions {
   level: number;
   /** Names pair i in words ("row 28"). */
   name: (i: number) => string;
+  /** The coefficient as computed, when the caller already has it (a bootstrap interval is not drawn twice). */
+  main?: CorrelationResult;
 }
 
 /** Above this many rows a rank coefficient is not recomputed without rows (see sensitivity). */
@@ -99,7 +101,7 @@ export function withEffectiveRows(res: CorrelationResult, effective: number): Co
   const m = Math.max(3, effective);
   const df = m - 2;
   const t = tFromR(res.statistic, df);
-  const se = fisherStandardError(res.method, res.statistic, m);
+  const se = isClassical(res.method) ? fisherStandardError(res.method, res.statistic, m) : NaN;
   const interval = Number.isFinite(se) && Math.abs(res.statistic) < 1
     ? fisherInterval(res.statistic, se, res.interval.level, `${res.interval.method}, with n = ${num(m)} effective rows`)
     : { lower: NaN, upper: NaN, level: res.interval.level, method: res.interval.method, note: 'too few effective rows for an interval' };
@@ -109,7 +111,8 @@ export function withEffectiveRows(res: CorrelationResult, effective: number): Co
 /**
  * Restates the conclusion of the chosen coefficient under each alternative the data call for:
  * - as computed;
- * - a rank coefficient (Spearman for Pearson; Kendall for Spearman; Spearman for Kendall);
+ * - a rank coefficient (Spearman for Pearson; Kendall for Spearman; Spearman for others);
+ * - a robust coefficient, the percentage bend correlation (Wilcox 1994) by its t test, unless one was chosen;
  * - without the single most influential row (the largest change in Pearson's r when one row is left out,
  *   report.leaveOneOut, O(n));
  * - without all the flagged rows (outliers, influential points), when there are any and at most a tenth of the rows;
@@ -120,7 +123,7 @@ export function withEffectiveRows(res: CorrelationResult, effective: number): Co
  */
 export function sensitivity(prepared: PreparedPairs, report: CheckReport, opts: SensitivityOptions): Sensitivity {
   const { method, level } = opts;
-  const main = correlatePrepared(prepared, { method, tail: 'both', level });
+  const main = opts.main ?? correlatePrepared(prepared, { method, tail: 'both', level });
   const first = rowOf('as computed', main.name, main, 'none');
   const direction = first.direction;
   first.holds = true;
@@ -133,6 +136,15 @@ export function sensitivity(prepared: PreparedPairs, report: CheckReport, opts: 
   } catch {
     // A constant rank column cannot happen when the values vary; nothing to add if it does.
   }
+  if (!isRobust(method) && n >= 5) {
+    try {
+      // Its t test alone: the bootstrap interval is for when it is the coefficient chosen.
+      const robust = correlatePrepared(prepared, { method: 'percentage_bend', tail: 'both', level, interval: 'none' });
+      rows.push(rowOf('robust coefficient', 'percentage bend', robust, direction));
+    } catch {
+      // Undefined when most of a column shares one value: the rank row covers that case.
+    }
+  }
   const loo = report.leaveOneOut;
   let restsOn: number | null = null;
   // Taking rows out of a rank coefficient means sorting again; above this many rows a few rows cannot move its
@@ -141,7 +153,7 @@ export function sensitivity(prepared: PreparedPairs, report: CheckReport, opts: 
   if (loo && n >= 5 && recompute) {
     const cut = without(prepared.x, prepared.y, [loo.most]);
     try {
-      const res = correlate(cut.x, cut.y, { method, tail: 'both', level });
+      const res = correlate(cut.x, cut.y, { method, tail: 'both', level, interval: isClassical(method) ? 'fisher' : 'none' });
       const row = rowOf('without the most influential row', `without ${opts.name(loo.most)}`, res, direction);
       rows.push(row);
       if (!row.holds) restsOn = loo.most;
@@ -155,7 +167,7 @@ export function sensitivity(prepared: PreparedPairs, report: CheckReport, opts: 
   if (recompute && flagged.length > 0 && flagged.length <= n / 10 && n - flagged.length >= 5 && !(flagged.length === 1 && loo && flagged[0] === loo.most)) {
     const cut = without(prepared.x, prepared.y, flagged);
     try {
-      const res = correlate(cut.x, cut.y, { method, tail: 'both', level });
+      const res = correlate(cut.x, cut.y, { method, tail: 'both', level, interval: isClassical(method) ? 'fisher' : 'none' });
       const row = rowOf('without the flagged rows', `without the ${flagged.length} flagged rows`, res, direction);
       rows.push(row);
       flaggedChange = !row.holds;
@@ -173,7 +185,7 @@ export function sensitivity(prepared: PreparedPairs, report: CheckReport, opts: 
     rows.push(row);
     orderChange = !row.holds;
   }
-  const rankChange = rows.some((r) => r.scenario === 'rank coefficient' && !r.holds);
+  const rankChange = rows.some((r) => (r.scenario === 'rank coefficient' || r.scenario === 'robust coefficient') && !r.holds);
   const conclusion = DIRECTION_WORDS[direction];
   let summary: Summary;
   let line: string;
@@ -195,12 +207,14 @@ export function sensitivity(prepared: PreparedPairs, report: CheckReport, opts: 
     line = `Rests on ${opts.name(restsOn)}: without it the data show ${row ? DIRECTION_WORDS[row.direction] : 'no correlation at all'}. Check that row before relying on the result.`;
   } else if (flaggedChange) {
     summary = 'changes without the flagged rows';
-    const row = rows.find((r) => r.scenario === 'without the flagged rows')!;
-    line = `Changes without the flagged rows: leaving out the ${flagged.length} rows the checks flagged, the data show ${DIRECTION_WORDS[row.direction]}.`;
+    const row = rows.find((r) => r.scenario === 'without the flagged rows');
+    line = row
+      ? `Changes without the flagged rows: leaving out the ${flagged.length} rows the checks flagged, the data show ${DIRECTION_WORDS[row.direction]}.`
+      : `Changes without the flagged rows: leaving out the ${flagged.length} rows the checks flagged leaves a column constant, so no correlation is left at all.`;
   } else if (rankChange) {
     summary = 'changes with the coefficient';
-    const row = rows.find((r) => r.scenario === 'rank coefficient')!;
-    line = `Changes with the coefficient: ${row.label} shows ${DIRECTION_WORDS[row.direction]}.`;
+    const changed = rows.filter((r) => (r.scenario === 'rank coefficient' || r.scenario === 'robust coefficient') && !r.holds);
+    line = `Changes with the coefficient: ${listWords(changed.map((r) => `${r.label} shows ${DIRECTION_WORDS[r.direction]}`))}.`;
   } else {
     summary = 'holds under every check';
     line = `Holds under every check: ${conclusion} with every alternative tried (${rows.slice(1).map((r) => r.label).join(', ') || 'none was needed'}).`;

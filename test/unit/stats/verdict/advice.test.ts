@@ -64,7 +64,7 @@ test('uneven spread that makes the interval too narrow: the logarithm for positi
   expect(plainReading(chosen, only, 0.05)).toMatch(/^Taken at face value \(see the flags\), across 400 pairs/);
 });
 
-test('a clean sample of 30: the checks that cannot see at 30 rows keep "as it stands" away; a heavy-tailed one: Spearman', () => {
+test('a clean sample of 30: the checks that cannot see at 30 rows keep "as it stands" away; a heavy-tailed one: the percentage bend correlation', () => {
   const { x, y } = simulate('plain', 30);
   const report = runChecks(x, y, { alpha: 0.05 });
   const chosen = correlate(x, y, opts('pearson'));
@@ -75,13 +75,19 @@ test('a clean sample of 30: the checks that cannot see at 30 rows keep "as it st
   expect(report.tooFew).toBeGreaterThanOrEqual(2);
   expect(rec.reason).toMatch(/could not tell with 30 rows/);
   expect(plainReading(chosen, report, 0.05)).toMatch(/^Across 30 pairs/);
-  // Above 25 pairs the rank coefficient offered is Spearman's.
+  // An outlier: the robust coefficient is named first, with a rank coefficient as the other choice.
   const heavy = simulate('heavy', 30);
   const rep2 = runChecks(heavy.x, heavy.y, { alpha: 0.05 });
   const ref = R.simulated.find((c) => c.kind === 'heavy' && c.n === 30)!; // R: Bonferroni p 0.0013 at the 11th pair
   expect(ref.outlier.bonferroni_p).toBeLessThan(0.05);
   expect([...rep2.flags, ...rep2.minor]).toContain(`outlier at position ${ref.outlier.index + 1}`);
-  expect(recommendCoefficient(rep2, correlate(heavy.x, heavy.y, opts('pearson'))).name).toBe('Spearman');
+  const rec2 = recommendCoefficient(rep2, correlate(heavy.x, heavy.y, opts('pearson')), false, { robust: 0.41, pearson: 0.62 });
+  expect(rec2.name).toBe('percentage bend');
+  expect(rec2.remedy).toBe('robust');
+  expect(rec2.reason).toMatch(/Wilcox 1994/);
+  expect(rec2.reason).toMatch(/r_pb = 0\.41 against Pearson's r = 0\.62, a shift of 0\.21/);
+  // Spearman, if chosen, already resists the outlier and is kept.
+  expect(recommendCoefficient(rep2, correlate(heavy.x, heavy.y, opts('spearman'))).changed).toBe(false);
 });
 
 test('a negative correlation whose interval includes zero reads with no direction', () => {

@@ -114,4 +114,21 @@ test('a rent keyed in wrong: "check row 28 for a data-entry error first"', () =>
   expect(Math.abs(out.statistic as number)).toBeGreaterThan(10);
   expect(c.recommendation.remedy).toBe('check-row');
   expect(c.recommendation.reason).toMatch(/^Check row 28 for a data-entry error first/);
+  // If the value is right: the percentage bend correlation, with how far it sits from Pearson's r.
+  expect(c.recommendation.name).toBe('percentage bend');
+  expect(c.recommendation.reason).toMatch(/r_pb = -?0\.\d+ against Pearson's r = -?0\.\d+/);
+  expect(c.sensitivity.rows.map((r) => r.scenario)).toContain('robust coefficient');
+});
+
+test('two five-point rating items: the polychoric correlation is named', () => {
+  const n = 200;
+  const a = normals(51, n);
+  const b = normals(52, n);
+  const cut = (v: number) => (v < -1.2 ? 1 : v < -0.4 ? 2 : v < 0.4 ? 3 : v < 1.2 ? 4 : 5);
+  const x = Float64Array.from(a, cut);
+  const y = Float64Array.from(a, (v, i) => cut(0.6 * v + 0.8 * b[i]));
+  const { c } = verdictOf(x, y);
+  expect(c.recommendation.name).toBe('polychoric');
+  expect(c.recommendation.remedy).toBe('ordinal');
+  expect(c.recommendation.reason).toMatch(/rating-scale items/);
 });
