@@ -4,7 +4,7 @@
  * are the core's (src/stats/options.ts), so a cell and any other caller meet one rule.
  */
 import { validAlpha, validLevel } from '../stats/options';
-import { Method, METHODS, StatsInputError, Tail, TAILS } from '../stats/types';
+import { CLASSICAL_METHODS, ClassicalMethod, INTERVAL_METHODS, IntervalMethod, Method, METHODS, StatsInputError, Tail, TAILS } from '../stats/types';
 
 /** True when an optional argument was omitted (Excel passes null; an empty referenced cell may give ""; 0 is a value). */
 export function omitted(v: unknown): boolean {
@@ -28,6 +28,16 @@ export function optTail(v: unknown): Tail {
 
 export function optMethod(v: unknown): Method {
   return optionWord(v, METHODS, 'pearson', 'method');
+}
+
+/** A coefficient whose test needs only r and n (a reported correlation, an equivalence test). */
+export function optClassicalMethod(v: unknown): ClassicalMethod {
+  return optionWord(v, CLASSICAL_METHODS, 'pearson', 'method');
+}
+
+/** How the interval is made; omitted leaves the coefficient's own default (Fisher z, or the percentile bootstrap). */
+export function optInterval(v: unknown): IntervalMethod | undefined {
+  return omitted(v) ? undefined : optionWord(v, INTERVAL_METHODS, 'fisher', 'interval');
 }
 
 /** An optional number argument. */

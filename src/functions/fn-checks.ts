@@ -7,7 +7,7 @@
  * prepared pairs from what it reads through the Excel API and comes to the same core entry point
  * (src/stats/checks/checked.ts), but does not share this cache.
  */
-import { coefficientSymbol } from '../stats/verdict/advice';
+import { coefficientSymbol, listWords } from '../stats/verdict/advice';
 import { conclude } from '../stats/verdict/conclusion';
 import { formatCorrelation, formatNumber, formatP } from '../stats/format';
 import { CellRange } from '../sheet/cells';
@@ -17,8 +17,8 @@ import { checksOf } from '../stats/checks/checked';
 import { correlatePrepared } from '../stats/correlation/correlate';
 import { Direction } from '../stats/checks/verdict';
 import { PreparedPairs } from '../stats/correlation/prepared';
-import { Method, METHOD_LABELS, METHODS } from '../stats/types';
-import { optAlpha, optLevel, optMethod } from './args';
+import { CLASSICAL_METHODS, Method, METHOD_LABELS } from '../stats/types';
+import { optAlpha, optInterval, optLevel, optMethod } from './args';
 import { cellValue, guard } from './errors';
 import { PairedColumns, requirePairs } from './read';
 import { sharedPairs } from './shared-pairs';
@@ -120,7 +120,7 @@ function pairNames(x: CellRange, pairs: PairedColumns, xAddress?: string | null)
  * @param x First column (or row) of numbers.
  * @param y Second column (or row) of numbers, the same size as x.
  * @param [level] Confidence level of the intervals, between 0 and 1; default 0.95 (95%).
- * @param [method] The coefficient the conclusion is about: "pearson" (default), "spearman" or "kendall".
+ * @param [method] The coefficient the conclusion is about: "pearson" (default, straight line), "spearman" (rank order), "kendall" (rank agreement); resisting outliers: "percentage_bend", "winsorized", "biweight" or "skipped" (sets outlying rows aside); for rating-scale items: "polychoric" (both columns) or "polyserial" (one column).
  * @param invocation Supplied by Excel: where x is, so that rows are named by their sheet row.
  * @returns A table: a header row, one row per alternative (what was done, coefficient, lower, upper, p-value, rows, conclusion, whether it holds), and a last row with the summary.
  * @requiresParameterAddresses
@@ -151,24 +151,28 @@ export function SENSITIVITY(x: any[][], y: any[][], level?: number, method?: str
  * @param x First column (or row) of numbers.
  * @param y Second column (or row) of numbers, the same size as x.
  * @param [level] Confidence level of the interval, between 0 and 1; default 0.95 (95%).
- * @param [method] "pearson" (default), "spearman" or "kendall".
+ * @param [method] "pearson" (default, straight line), "spearman" (rank order), "kendall" (rank agreement); resisting outliers: "percentage_bend", "winsorized", "biweight" or "skipped" (sets outlying rows aside); for rating-scale items: "polychoric" (both columns) or "polyserial" (one column).
+ * @param [interval] How the interval is made: "fisher" (default for Pearson, Spearman and Kendall), "bca" (bias-corrected and accelerated bootstrap) or "percentile" (percentile bootstrap, the default for the outlier-resisting coefficients).
  * @param invocation Supplied by Excel: where x is, so that points are named by their sheet row.
  * @returns A two-column table: what is reported, and its value.
  * @requiresParameterAddresses
  */
-export function REPORT(x: any[][], y: any[][], level?: number, method?: string, invocation?: CustomFunctions.Invocation): any[][] {
+export function REPORT(x: any[][], y: any[][], level?: number, method?: string, interval?: string, invocation?: CustomFunctions.Invocation): any[][] {
   return guard(() => {
     const lvl = optLevel(level);
     const m = optMethod(method);
+    const iv = optInterval(interval);
     const address = invocation?.parameterAddresses?.[0];
     const { pairs, prepared, report } = checkedPairs(x, y, REPORT_CHECK_ALPHA, address);
-    const c = conclude(prepared, report, { method: m, level: lvl, name: pairNames(x, pairs, address) });
+    const names = pairNames(x, pairs, address);
+    const c = conclude(prepared, report, { method: m, level: lvl, name: names, interval: iv });
     const result = c.correlation;
-    const opts = (mm: Method) => ({ method: mm, tail: 'both' as const, level: lvl });
+    const opts = (mm: Method) => ({ method: mm, tail: 'both' as const, level: lvl, interval: 'none' as const });
     const pearsonR = m === 'pearson' ? result.statistic : correlatePrepared(prepared, opts('pearson')).statistic;
     const pct = `${Number((lvl * 100).toPrecision(4))}%`;
     const sym = coefficientSymbol(result);
     const noInterval = result.interval.note ?? `needs at least ${m === 'kendall' ? 5 : 4} pairs`;
+    const skippedRows = result.skippedRows ?? [];
     const rows: (string | number)[][] = [
       ['Pairs used', pairs.x.length],
       ['Pairs skipped (blank, text or TRUE/FALSE)', pairs.skipped],
@@ -176,14 +180,20 @@ export function REPORT(x: any[][], y: any[][], level?: number, method?: string, 
       [sym, result.statistic],
       [`${pct} interval, lower`, Number.isFinite(result.interval.lower) ? result.interval.lower : noInterval],
       [`${pct} interval, upper`, Number.isFinite(result.interval.upper) ? result.interval.upper : noInterval],
+      ['Interval method', result.interval.method],
       [`p-value (two-sided, ${result.pMethod})`, result.pValue],
       ['r² (Pearson: share of the variation in y the line accounts for)', pearsonR * pearsonR],
       ['Slope of the line (change in y per unit of x)', inUnits(report.line.slope)],
       ['Intercept of the line (y where x = 0)', inUnits(report.line.intercept)],
     ];
-    for (const other of METHODS) {
+    if (result.method === 'skipped') {
+      rows.push([`Rows set aside as outliers (${skippedRows.length})`, skippedRows.length === 0 ? 'none' : listWords(skippedRows.map(names))]);
+    }
+    for (const other of CLASSICAL_METHODS) {
       if (other !== m) rows.push([`${METHOD_LABELS[other].name} ${METHOD_LABELS[other].symbol} alongside`, correlatePrepared(prepared, opts(other)).statistic]);
     }
+    const robustRow = c.sensitivity.rows.find((r) => r.scenario === 'robust coefficient');
+    if (robustRow) rows.push([`Percentage bend r_pb alongside (resists outliers; ${formatP(robustRow.pValue)})`, robustRow.statistic]);
     rows.push(['Does the conclusion hold?', c.sensitivity.line]);
     for (const r of c.sensitivity.rows.slice(1)) {
       rows.push([`Conclusion ${r.scenario === 'rank coefficient' ? `with ${r.label}` : r.label}`,

@@ -9,8 +9,8 @@ import { ComparisonResult, requireRows } from '../stats/compare/comparison';
 import { assertMatrixFits, correlationMatrix, MATRIX_SHOWS, MatrixShow } from '../stats/compare/matrix';
 import { partialCorrelation } from '../stats/compare/partial';
 import { CellRange, rangeShape, readHeaderRow } from '../sheet/cells';
-import { StatsInputError } from '../stats/types';
-import { optFlag, optLevel, optMethod, optTail, optionWord, requiredNumber } from './args';
+import { Method, StatsInputError } from '../stats/types';
+import { optClassicalMethod, optFlag, optLevel, optMethod, optTail, optionWord, requiredNumber } from './args';
 import { guard } from './errors';
 import { readAlignedVectors, readBlock, readPairs, readWithControls } from './read';
 
@@ -19,8 +19,8 @@ function comparisonRow(res: ComparisonResult): number[][] {
   return [[res.statistic, res.interval.lower, res.interval.upper, res.pValue]];
 }
 
-function options(level: unknown, tail: unknown): { level: number; tail: ReturnType<typeof optTail> } {
-  return { level: optLevel(level), tail: optTail(tail) };
+function options(level: unknown, tail: unknown, method: unknown = null): { level: number; tail: ReturnType<typeof optTail>; method: Method } {
+  return { level: optLevel(level), tail: optTail(tail), method: optMethod(method) };
 }
 
 /**
@@ -32,11 +32,12 @@ function options(level: unknown, tail: unknown): { level: number; tail: ReturnTy
  * @param y2 Second column (or row) of the second group, the same size as x2.
  * @param [level] Confidence level between 0 and 1, default 0.95 (95%).
  * @param [tail] "both" (default: any difference), "positive" (only a stronger correlation in the first group counts) or "negative" (only a weaker one).
+ * @param [method] The coefficient compared: "pearson" (default), "spearman" or "kendall", or one that resists outliers, "percentage_bend", "winsorized", "biweight" or "skipped" (compared by a bootstrap of the rows, seeded from the data so the same cells give the same answer).
  * @returns {any[][]} One row of four cells: the first group's correlation minus the second's, the lower and upper ends of its confidence interval, and the p-value.
  */
-export function DIFF_GROUPS(x1: any[][], y1: any[][], x2: any[][], y2: any[][], level?: number, tail?: string): any[][] {
+export function DIFF_GROUPS(x1: any[][], y1: any[][], x2: any[][], y2: any[][], level?: number, tail?: string, method?: string): any[][] {
   return guard(() => {
-    const opts = options(level, tail);
+    const opts = options(level, tail, method);
     const g1 = readPairs(x1, y1, 'x1', 'y1');
     const g2 = readPairs(x2, y2, 'x2', 'y2');
     requireRows(g1.x.length, 'the first group');
@@ -53,11 +54,12 @@ export function DIFF_GROUPS(x1: any[][], y1: any[][], x2: any[][], y2: any[][], 
  * @param b The second column to correlate with common, the same size as common.
  * @param [level] Confidence level between 0 and 1, default 0.95 (95%).
  * @param [tail] "both" (default: any difference), "positive" (only a stronger link of common with a counts) or "negative" (only a stronger link with b).
+ * @param [method] The coefficient compared: "pearson" (default), "spearman" or "kendall", or one that resists outliers, "percentage_bend", "winsorized", "biweight" or "skipped" (compared by a bootstrap of the rows, seeded from the data so the same cells give the same answer).
  * @returns {any[][]} One row of four cells: correlation(common, a) minus correlation(common, b), the lower and upper ends of its confidence interval, and the p-value. Rows missing a number in any of the three columns are skipped.
  */
-export function DIFF_SHARED(common: any[][], a: any[][], b: any[][], level?: number, tail?: string): any[][] {
+export function DIFF_SHARED(common: any[][], a: any[][], b: any[][], level?: number, tail?: string, method?: string): any[][] {
   return guard(() => {
-    const opts = options(level, tail);
+    const opts = options(level, tail, method);
     const [c, u, v] = readAlignedVectors([common, a, b], ['common', 'a', 'b']);
     requireRows(c.length, 'the data');
     return comparisonRow(compareSharedSamples(c, u, v, opts));
@@ -73,11 +75,12 @@ export function DIFF_SHARED(common: any[][], a: any[][], b: any[][], level?: num
  * @param d Second column of the second pair, the same size as a.
  * @param [level] Confidence level between 0 and 1, default 0.95 (95%).
  * @param [tail] "both" (default: any difference), "positive" (only a stronger a-b link counts) or "negative" (only a stronger c-d link).
+ * @param [method] The coefficient compared: "pearson" (default), "spearman" or "kendall", or one that resists outliers, "percentage_bend", "winsorized", "biweight" or "skipped" (compared by a bootstrap of the rows, seeded from the data so the same cells give the same answer).
  * @returns {any[][]} One row of four cells: correlation(a, b) minus correlation(c, d), the lower and upper ends of its confidence interval, and the p-value. Rows missing a number in any of the four columns are skipped.
  */
-export function DIFF_SEPARATE(a: any[][], b: any[][], c: any[][], d: any[][], level?: number, tail?: string): any[][] {
+export function DIFF_SEPARATE(a: any[][], b: any[][], c: any[][], d: any[][], level?: number, tail?: string, method?: string): any[][] {
   return guard(() => {
-    const opts = options(level, tail);
+    const opts = options(level, tail, method);
     const [p, q, s, t] = readAlignedVectors([a, b, c, d], ['a', 'b', 'c', 'd']);
     requireRows(p.length, 'the data');
     return comparisonRow(compareSeparateSamples(p, q, s, t, opts));
@@ -93,11 +96,12 @@ export function DIFF_SEPARATE(a: any[][], b: any[][], c: any[][], d: any[][], le
  * @param n2 The number of rows behind r2, a whole number of at least 4.
  * @param [level] Confidence level between 0 and 1, default 0.95 (95%).
  * @param [tail] "both" (default: any difference), "positive" (only r1 larger counts) or "negative" (only r1 smaller).
+ * @param [method] The coefficient both were reported as: "pearson" (default), "spearman" (Bonett and Wright standard error) or "kendall" (Fieller, Hartley and Pearson standard error).
  * @returns {any[][]} One row of four cells: r1 minus r2, the lower and upper ends of its confidence interval, and the p-value.
  */
-export function DIFF_REPORTED(r1: number, n1: number, r2: number, n2: number, level?: number, tail?: string): any[][] {
+export function DIFF_REPORTED(r1: number, n1: number, r2: number, n2: number, level?: number, tail?: string, method?: string): any[][] {
   return guard(() => {
-    const opts = options(level, tail);
+    const opts = { ...options(level, tail), method: optClassicalMethod(method) };
     return comparisonRow(
       compareIndependent(requiredNumber(r1, 'r1'), requiredNumber(n1, 'n1'), requiredNumber(r2, 'r2'), requiredNumber(n2, 'n2'), opts),
     );
@@ -127,7 +131,7 @@ export function PARTIAL(x: any[][], y: any[][], controls: any[][], level?: numbe
  * The correlations between every pair of columns in a block of data, laid out as a table with one row and one column per data column; for many columns at once, with p-values adjusted for testing them all. Each pair uses the rows where both columns hold numbers.
  * @customfunction MATRIX
  * @param data A block of two or more columns of numbers side by side, one column per measure (at most 200 columns; fewer when there are many rows).
- * @param [method] "pearson" (default, straight-line association), "spearman" (rank order) or "kendall" (rank agreement).
+ * @param [method] "pearson" (default, straight-line association), "spearman" (rank order), "kendall" (rank agreement); resisting outliers: "percentage_bend", "winsorized", "biweight" or "skipped"; for rating-scale items "polychoric" or "polyserial".
  * @param [show] What each cell shows: "coef" (default: the correlation), "pvalue" (its p-value, two-sided), "pvalue_holm" (p-value adjusted by Holm's method, which guards against any false alarm among all the pairs), "pvalue_fdr" (adjusted by Benjamini and Hochberg's method, which keeps the share of false alarms low) or "pairs" (the rows used).
  * @param [headers] TRUE if the first row of data holds column names: the answer then carries them along its top and left side. Default FALSE.
  * @returns {any[][]} A square table. The diagonal (each column with itself) shows 1 for "coef", the count of numbers in that column for "pairs", and an empty cell for the p-values, since a column is not tested against itself.

@@ -7,8 +7,9 @@ import { CellRange } from '../sheet/cells';
 import { bayesCorrelation, BayesResult } from '../stats/correlation/bayes';
 import { equivalenceTest } from '../stats/correlation/benchmark';
 import { correlatePrepared } from '../stats/correlation/correlate';
-import { optAlpha, optMethod, optNumber, requiredNumber } from './args';
-import { guard } from './errors';
+import { omitted, optAlpha, optClassicalMethod, optLevel, optNumber, optionWord, requiredNumber } from './args';
+import { cellValue, guard } from './errors';
+import { correctionText, correctValidity } from '../stats/corrections/corrected';
 import { requirePairs } from './read';
 import { sharedPairs } from './shared-pairs';
 
@@ -26,7 +27,7 @@ export function NEGLIGIBLE(x: any[][], y: any[][], bound?: number, alpha?: numbe
   return guard(() => {
     const b = optNumber(bound, 0.1, 'bound');
     const a = optAlpha(alpha);
-    const m = optMethod(method);
+    const m = optClassicalMethod(method);
     const { pairs, prepared } = sharedPairs(x as CellRange, y as CellRange);
     requirePairs(pairs, 4);
     const r = correlatePrepared(prepared, { method: m, tail: 'both', level: 0.95 });
@@ -77,4 +78,32 @@ export function BAYES(x: any[][], y: any[][], prior_width?: number, prior_odds?:
  */
 export function BAYES_REPORTED(r: number, n: number, prior_width?: number, prior_odds?: number): any[][] {
   return guard(() => bayesRow(bayesCorrelation(requiredNumber(r, 'r'), requiredNumber(n, 'n'), priorOptions(prior_width, prior_odds))));
+}
+
+/**
+ * Corrects an observed validity (the correlation between a selection measure and later performance, say) for unreliable measures and for range restriction, in the order Hunter and Schmidt prescribe: criterion unreliability, then restriction, then predictor unreliability. The answer estimates the correlation among all applicants, not among the people in the sheet.
+ * @customfunction CORRECTED
+ * @param r The observed correlation, strictly between -1 and 1.
+ * @param [rel_x] Reliability of the predictor x among applicants (the unrestricted group), between 0 and 1. Given: the answer is the true-score correlation (constructs, for theory). Omitted: the operational validity (x as measured, for decisions).
+ * @param [rel_y] Reliability of the criterion y in the sample (for example inter-rater reliability of performance ratings), between 0 and 1.
+ * @param [sd_ratio] Standard deviation of x among applicants divided by its standard deviation in the sample (above 1 when the sample was selected on x).
+ * @param [restriction] "direct" (default: people were selected on x itself; Thorndike's Case II) or "indirect" (selected on something related to x; Case IV, which needs rel_x).
+ * @param [n] Rows behind r, at least 4: gives the interval, made by correcting the ends of the observed Fisher-z interval.
+ * @param [level] Confidence level between 0 and 1, default 0.95 (95%).
+ * @returns {any[][]} One row: the corrected correlation, the lower and upper ends of its interval (empty without n), and the steps applied with which figure answers which question.
+ */
+export function CORRECTED(r: number, rel_x?: number, rel_y?: number, sd_ratio?: number, restriction?: string, n?: number, level?: number): any[][] {
+  return guard(() => {
+    const opt = (v: unknown, name: string): number | undefined => (omitted(v) ? undefined : requiredNumber(v, name));
+    const res = correctValidity({
+      r: requiredNumber(r, 'r'),
+      relX: opt(rel_x, 'rel_x'),
+      relY: opt(rel_y, 'rel_y'),
+      sdRatio: opt(sd_ratio, 'sd_ratio'),
+      restriction: omitted(restriction) ? undefined : optionWord(restriction, ['direct', 'indirect'] as const, 'direct', 'restriction'),
+      n: opt(n, 'n'),
+      level: omitted(level) ? undefined : optLevel(level),
+    });
+    return [[res.corrected, cellValue(res.lower), cellValue(res.upper), correctionText(res)]];
+  });
 }

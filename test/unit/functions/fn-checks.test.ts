@@ -143,7 +143,7 @@ describe('REPORT', () => {
 
   test('recommendations follow the flags', () => {
     const rec = (k: number, method: string | null = null) => {
-      const m = reportMap(REPORT(col(set(k).x), col(set(k).y), NONE, method as string, SHEET));
+      const m = reportMap(REPORT(col(set(k).x), col(set(k).y), NONE, method as string, NO_WORD, SHEET));
       return [m.get('Recommended coefficient'), String(m.get('Why'))];
     };
     // 11 clean rows: never "read as it stands" while most checks could not see.
@@ -152,8 +152,10 @@ describe('REPORT', () => {
     expect(rec(1)[1]).not.toMatch(/as it stands/);
     expect(rec(2)[0]).toBe('Kendall tau-b');
     expect(rec(2)[1]).toMatch(/^The points bend away from a straight line/);
-    expect(rec(3)[0]).toBe('Kendall tau-b');
+    // An outlier (Anscombe's third set): the percentage bend correlation, with how far it moves from Pearson.
+    expect(rec(3)[0]).toBe('percentage bend');
     expect(rec(3)[1]).toMatch(/^An outlier \(row 4\) moves r: leaving row 4 out moves r from 0\.816 to/);
+    expect(rec(3)[1]).toMatch(/r_pb = \d\.\d+ against Pearson's r = 0\.816/);
     expect(rec(3, 'spearman')[0]).toBe('Spearman');
     expect(rec(3, 'spearman')[1]).toMatch(/Spearman \(as chosen\) is a rank coefficient and resists it/);
     expect(rec(4)).toEqual(['none is reliable on these data', expect.stringMatching(/^One point sets the slope \(row 9\)/)]);

@@ -81,8 +81,8 @@ describe('REPORT under a shuffle of the rows', () => {
         const n = x.length;
         const r = callCell('COEF', [col(x), col(y), null]);
         if (r.kind === 'value' && Math.abs(r.value as number) > 1 - 1e-6) return; // exact fits: see the CHECKS test
-        const a = callCell('REPORT', [col(x), col(y), null, null, invocation(n)]);
-        const b = callCell('REPORT', [col(perm.map((k) => x[k])), col(perm.map((k) => y[k])), null, null, invocation(n)]);
+        const a = callCell('REPORT', [col(x), col(y), null, null, null, invocation(n)]);
+        const b = callCell('REPORT', [col(perm.map((k) => x[k])), col(perm.map((k) => y[k])), null, null, null, invocation(n)]);
         if (a.kind !== 'value' || b.kind !== 'value') {
           if (a.kind === 'host-error' && b.kind === 'host-error' && a.code === b.code) return;
           throw new Error(`${describeOutcome(a)} vs ${describeOutcome(b)}`);

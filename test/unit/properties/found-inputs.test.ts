@@ -65,7 +65,7 @@ describe('units that differ by about 1e308 between x and y (each value within 1e
   });
 
   test('REPORT(x * 1e-300, y * 1e300) answers: the coefficient rows as for (x, y), the slope shown or left out', () => {
-    const out = callCell('REPORT', [col(scaled(rRef.x, 1e-300)), col(scaled(rRef.y, 1e300)), null, null, inv]);
+    const out = callCell('REPORT', [col(scaled(rRef.x, 1e-300)), col(scaled(rRef.y, 1e300)), null, null, null, inv]);
     if (out.kind !== 'value') throw new Error(`REPORT refused: ${describeOutcome(out)}`);
     const r = (out.value as unknown[][]).find((row) => row[0] === 'r')?.[1] as number;
     expectRel(r, rRef.pearson[2].r, 1e-12, 'r (R cor.test)');

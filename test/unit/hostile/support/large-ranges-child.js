@@ -80,7 +80,7 @@ for (const v of variants) {
     ['MATRIX pairs', [block(X, Y, Z), null, 'pairs', null], [block(xs, ys, zs), null, 'pairs', null]],
     ['CHECKS', [X, Y, null, invBig], [xs, ys, null, invSmall]],
     ['FLAGS', [X, Y, null, invBig], [xs, ys, null, invSmall]],
-    ['REPORT', [X, Y, null, null, invBig], [xs, ys, null, null, invSmall]],
+    ['REPORT', [X, Y, null, null, null, invBig], [xs, ys, null, null, null, invSmall]],
   ];
   results[v.name] = {};
   for (const [label, big, small] of cases) {

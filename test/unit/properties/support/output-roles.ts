@@ -213,6 +213,18 @@ export const OUTPUT_ROLES: Record<string, RoleCheck> = {
   },
   BAYES: bayesRow,
   BAYES_REPORTED: bayesRow,
+  // @returns One row: the corrected correlation, the ends of its interval (empty without n), the steps in words.
+  CORRECTED: (v) => {
+    if (!Array.isArray(v) || v.length !== 1 || !Array.isArray(v[0]) || v[0].length !== 4) return [`expected one row of four cells, got ${JSON.stringify(v)}`];
+    const [r, lo, hi, words] = v[0] as unknown[];
+    const out = inUnit(r, 'corrected r');
+    if (lo !== '' || hi !== '') {
+      out.push(...inUnit(lo, 'lower'), ...inUnit(hi, 'upper'));
+      if (isNum(lo) && isNum(hi) && isNum(r) && !(lo <= r && r <= hi)) out.push(`interval [${lo}, ${hi}] does not hold ${r}`);
+    }
+    if (typeof words !== 'string' || !/applicant group/.test(words)) out.push(`steps ${String(words)}`);
+    return out;
+  },
   // @returns The power, between 0 and 1.
   POWER: (v) => probability(v, 'power'),
   // @returns The number of rows (pairs of values), a whole number.
