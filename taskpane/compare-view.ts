@@ -1,14 +1,16 @@
 /**
- * The Compare section's numbers: two Pearson correlations with their intervals, and their difference with Zou's
- * (2007) interval and the p-value of the test that fits the design. The statistics are the core's
+ * The Compare section's numbers: two correlations of the coefficient chosen in the Relationship section, each with
+ * its own interval, and their difference with the interval and p-value of the test that fits the design (Zou's
+ * 2007 interval for Pearson and the rank coefficients between groups; a seeded bootstrap otherwise). The statistics are the core's
  * (src/stats/compare-*.ts); this module only lines up the columns for the chosen design. Pure.
  */
 import { formatBlock } from '../src/sheet/a1';
 import { compareIndependentSamples } from '../src/stats/compare/independent';
 import { compareSeparateSamples } from '../src/stats/compare/separate';
 import { compareSharedSamples } from '../src/stats/compare/shared';
-import { ComparisonResult, pearsonFisherInterval } from '../src/stats/compare/comparison';
-import { Interval, StatsInputError } from '../src/stats/types';
+import { ComparisonResult } from '../src/stats/compare/comparison';
+import { correlate, correlationInterval } from '../src/stats/correlation/correlate';
+import { Interval, isClassical, Method, StatsInputError } from '../src/stats/types';
 import { Design, DesignDetection } from './design';
 import { completeRows, dataBlock, pairColumns, PairedRows, PairingError } from './pairs';
 import type { NumericColumnRead } from './workbook';
@@ -46,8 +48,10 @@ export function computeComparison(
   detection: DesignDetection,
   level: number,
   pairedA?: PairedRows,
+  method: Method = 'pearson',
 ): CompareView | CompareFailure {
-  const opts = { tail: 'both' as const, level };
+  const opts = { tail: 'both' as const, level, method };
+  const own: [ArrayLike<number>, ArrayLike<number>][] = [];
   const labels = { a: `${a[1].header} with ${a[0].header}`, b: `${b[1].header} with ${b[0].header}` };
   try {
     let result: ComparisonResult;
@@ -57,6 +61,7 @@ export function computeComparison(
       const pb = pairColumns(b[0], b[1]);
       skipped = pa.skipped + pb.skipped;
       result = compareIndependentSamples(pa.x, pa.y, pb.x, pb.y, opts);
+      own.push([pa.x, pa.y], [pb.x, pb.y]);
     } else if (design === 'shared') {
       if (!detection.common) return { error: 'Pick pairs that share exactly one column for this design.' };
       const ia = detection.common.a;
@@ -65,17 +70,19 @@ export function computeComparison(
       skipped = cols.skipped;
       const [common, otherA, otherB] = cols.columns;
       result = compareSharedSamples(common, otherA, otherB, opts);
+      own.push([common, otherA], [common, otherB]);
     } else {
       const cols = completeRows([a[0].numbers, a[1].numbers, b[0].numbers, b[1].numbers]);
       skipped = cols.skipped;
       const [a0, a1, b0, b1] = cols.columns;
       result = compareSeparateSamples(a0, a1, b0, b1, opts);
+      own.push([a0, a1], [b0, b1]);
     }
     return {
       design,
       result,
-      interval1: pearsonFisherInterval(result.r1, result.n1, level),
-      interval2: pearsonFisherInterval(result.r2, result.n2, level),
+      interval1: ownInterval(method, result.r1, own[0], level),
+      interval2: ownInterval(method, result.r2, own[1], level),
       labels,
       where: { a: formatBlock(dataBlock(a[0])), b: formatBlock(dataBlock(b[0])) },
       skipped,
@@ -84,4 +91,10 @@ export function computeComparison(
     if (e instanceof StatsInputError || e instanceof PairingError) return { error: e.message };
     throw e;
   }
+}
+
+/** One correlation's own interval: Fisher z for the classical coefficients, else the coefficient's bootstrap. */
+function ownInterval(method: Method, r: number, [x, y]: [ArrayLike<number>, ArrayLike<number>], level: number): Interval {
+  if (isClassical(method)) return correlationInterval(method, r, x.length, level);
+  return correlate(x, y, { method, tail: 'both', level }).interval;
 }

@@ -354,7 +354,7 @@ export class PanelController {
     else {
       const problem = designProblem(chosen, blocksA, blocksB);
       if (problem) this.compare.render({ error: problem }, detection);
-      else this.compare.render(computeComparison(reads, readsB, chosen, detection, this.state.level, pairsA), detection);
+      else this.compare.render(computeComparison(reads, readsB, chosen, detection, this.state.level, pairsA, this.state.method), detection);
     }
     return true;
   }

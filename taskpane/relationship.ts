@@ -7,7 +7,7 @@
  * Statistics use every row; only the drawing is thinned (see draw-sample.ts).
  */
 import { sheetRowNaming } from '../src/sheet/naming';
-import { readCorrelation, Recommendation } from '../src/stats/verdict/advice';
+import { listWords, readCorrelation, Recommendation } from '../src/stats/verdict/advice';
 import { conclude } from '../src/stats/verdict/conclusion';
 import type { SensitivityRow, Summary } from '../src/stats/verdict/sensitivity';
 import type { Direction } from '../src/stats/checks/verdict';
@@ -243,7 +243,15 @@ export function analyseRelationship(p: PairedRows, opts: RelationshipOptions, me
       drawn,
       smooth,
       qqLine,
-      reading: readCorrelation(correlation, p.xHeader, p.yHeader, formatR),
+      reading: [
+        ...readCorrelation(correlation, p.xHeader, p.yHeader, formatR),
+        ...(correlation.skippedRows
+          ? [correlation.skippedRows.length === 0
+            ? 'The skipped correlation found no row outlying in both columns together, so it equals Pearson here.'
+            : `The skipped correlation set aside ${correlation.skippedRows.length} row${correlation.skippedRows.length === 1 ? '' : 's'} outlying in both columns together: ${listWords(correlation.skippedRows.slice(0, 12).map(naming.name))}${correlation.skippedRows.length > 12 ? ' and more' : ''}.`]
+          : []),
+        ...(correlation.interval.replicates ? [`Interval by ${correlation.interval.method}: the same cells always give the same interval.`] : []),
+      ],
       recommendation: conclusion.recommendation,
       verdict: {
         summary: conclusion.sensitivity.summary,

@@ -111,6 +111,7 @@ export const REPORT_CAUTIONS = [
   'A correlation is not evidence that one variable causes the other.',
   'Small samples, or rows selected on either variable, can give a very different correlation from the whole population.',
   'Before using this in decisions about people or money (hiring, pay, dismissal, credit, investment), check fairness and adverse-impact law where you are: local law and qualified professionals have the last word.',
+  'A validity corrected for range restriction or unreliability (COVARY.CORRECTED) estimates the correlation among applicants, not a property of the people in the sheet, and is only as good as the reliabilities and SDs put in.',
 ];
 
 /** Rows the CHECKS table fills on the report sheet (a header and its eight checks). */

@@ -5,6 +5,7 @@
 import { describeComparison } from '../../src/stats/compare/comparison';
 import { formatCount, formatPValue, formatR } from '../../src/stats/format';
 import { IntervalPlot } from '../charts';
+import { METHOD_LABELS } from '../../src/stats/types';
 import { CompareFailure, CompareView, isCompareFailure } from '../compare-view';
 import { Design, DESIGN_LABELS, DesignDetection } from '../design';
 import { el, fill, select } from '../dom';
@@ -106,7 +107,7 @@ export class CompareSection {
     tiles.p.value.textContent = formatPValue(r.pValue);
     tiles.p.value.setAttribute('data-value', String(r.pValue));
     const crosses = r.interval.lower < 0 && r.interval.upper > 0;
-    this.note.textContent = `Pearson correlations. ${describeComparison(r)}. ${crosses
+    this.note.textContent = `${METHOD_LABELS[r.method].name} correlations (the coefficient chosen above). ${describeComparison(r)}. ${crosses
       ? 'The interval of the difference includes zero: these data do not show the two correlations differ.'
       : 'The interval of the difference excludes zero.'}${view.skipped > 0 ? ` ${formatCount(view.skipped)} incomplete rows skipped.` : ''}`;
   }

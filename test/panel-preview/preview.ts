@@ -6,6 +6,7 @@
  *
  * Demo data: an invented chain of bakeries, "Juniper Lane Bakeries"; every number is generated here.
  */
+import type { Method } from '../../src/stats/types';
 import { mountPanel } from '../../taskpane/panel';
 import { pairColumns, readNumericColumn } from '../../taskpane/pairs';
 import { analyseRelationship } from '../../taskpane/relationship';
@@ -42,6 +43,8 @@ function branchSheet(rand: () => number, rows: number, slope: number, outlier: b
 
 const wb = new MemoryWorkbook();
 const hash = location.hash.slice(1);
+// "#method=percentage_bend" shows the demo with that coefficient chosen.
+const chosenMethod = /^method=([a-z_]+)$/.exec(hash)?.[1] as Method | undefined;
 const root = document.getElementById('app') as HTMLElement;
 const rand = seeded(20240501);
 
@@ -98,6 +101,7 @@ if (hash.startsWith('rows=')) {
     initial: { x: { kind: 'table', table: 'NorthBranches', column: markup ? '<img src=x onerror=alert(1)>' : 'Oven hours' }, y: { kind: 'table', table: 'NorthBranches', column: 'Loaves sold' } },
     initialCompare: { x: { kind: 'range', address: 'South!B1:B37' }, y: { kind: 'range', address: 'South!C1:C37' } },
     workerUrl: 'panel-worker.js',
+    method: chosenMethod,
   });
 }
 (window as unknown as { previewWorkbook: MemoryWorkbook }).previewWorkbook = wb;

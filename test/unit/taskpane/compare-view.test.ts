@@ -80,3 +80,21 @@ test('too few rows gives the core message', () => {
   const v = computeComparison([tiny(J), tiny(K)], [J2, K2], 'independent', { design: 'independent', why: '' }, 0.95);
   expect(isCompareFailure(v) && v.error).toMatch(/at least 4/);
 });
+
+test('the comparison follows the coefficient chosen: Spearman groups compared with their own standard errors', () => {
+  const det = detectDesign([dataBlock(J), dataBlock(K)], [dataBlock(J2), dataBlock(K2)]);
+  const v = computeComparison([J, K], [J2, K2], det.design!, det, 0.95, undefined, 'spearman');
+  if (isCompareFailure(v)) throw new Error(v.error);
+  expect(v.result.method).toBe('spearman');
+  expect(v.result.pMethod).toMatch(/Bonett & Wright/);
+  // Each pair's own interval is Spearman's Fisher-z interval (Bonett & Wright SE), containing its rho.
+  expect(v.interval1.method).toMatch(/Bonett & Wright/);
+  expect(v.interval1.lower).toBeLessThan(v.result.r1);
+  expect(v.interval1.upper).toBeGreaterThan(v.result.r1);
+  // One column in common, with a robust coefficient: a seeded bootstrap of the rows.
+  const shared = detectDesign([dataBlock(J), dataBlock(K)], [dataBlock(J), dataBlock(H)]);
+  const w = computeComparison([J, K], [J, H], shared.design!, shared, 0.95, undefined, 'percentage_bend');
+  if (isCompareFailure(w)) throw new Error(w.error);
+  expect(w.result.interval.method).toMatch(/percentile bootstrap of the difference/);
+  expect(w.interval1.method).toMatch(/percentile bootstrap/);
+});
