@@ -2,7 +2,8 @@ import { percentileBounds, replicate, ResampleSource, seededResamples } from '..
 import { seedFromData } from '../bootstrap/rng';
 import { correlatePrepared } from '../correlation/correlate';
 import { PreparedPairs } from '../correlation/prepared';
-import { replicatesFor, weightedStatistic } from '../robust/robust';
+import { replicatesFor, sortedColumns, weightedStatistic } from '../robust/robust';
+import { gatherWeights, weightedAverageRanks, weightedPearsonAbout } from '../robust/weighted';
 import { isOrdinal, Method, METHOD_LABELS, StatsInputError, Tail } from '../types';
 import { ComparisonDesign, ComparisonOptions, ComparisonResult, requireRows } from './comparison';
 
@@ -47,11 +48,12 @@ function compareByBootstrap(pairs: SameRowsPairs, method: Method, opts: Comparis
   requireRows(n, 'the data');
   const r1 = correlatePrepared(first, { method, tail: 'both', level: opts.level, interval: 'none' }).statistic;
   const r2 = correlatePrepared(second, { method, tail: 'both', level: opts.level, interval: 'none' }).statistic;
+  const diff = pairs.design === 'shared' && method === 'spearman' ? sharedSpearmanDifference(first, second) : null;
   const s1 = weightedStatistic(first, method);
   const s2 = weightedStatistic(second, method);
   const B = opts.resamples?.replicates ?? replicatesFor(2 * n, method); // two coefficients per resample
   const source: ResampleSource = opts.resamples ?? seededResamples(n, B, seedFromData(...pairs.columns));
-  const values = replicate((w, total) => s1(w, total) - s2(w, total), n, source);
+  const values = replicate(diff ?? ((w, total) => s1(w, total) - s2(w, total)), n, source);
   const bounds = percentileBounds(values, opts.level);
   const d = r1 - r2;
   const { p, finite } = bootstrapShareP(values, opts.tail);
@@ -65,6 +67,26 @@ function compareByBootstrap(pairs: SameRowsPairs, method: Method, opts: Comparis
     test: { name: 'z', value: NaN },
     pMethod: `bootstrap: twice the smaller share of ${finite} resampled differences on either side of 0 (${METHOD_LABELS[method].name})`,
     n1: n, n2: n, estimateCorrelation: NaN,
+  };
+}
+
+/** rho(common, a) - rho(common, b) per resample, ranking the common column once for both. */
+function sharedSpearmanDifference(first: PreparedPairs, second: PreparedPairs): (w: Int32Array, total: number) => number {
+  const p = sortedColumns(first);
+  const q = sortedColumns(second);
+  const n = first.n;
+  const rc = new Float64Array(n);
+  const ra = new Float64Array(n);
+  const rb = new Float64Array(n);
+  return (w, total) => {
+    gatherWeights(p.x, w);
+    gatherWeights(p.y, w);
+    gatherWeights(q.y, w);
+    weightedAverageRanks(p.x, rc);
+    weightedAverageRanks(p.y, ra);
+    weightedAverageRanks(q.y, rb);
+    const mid = (total + 1) / 2;
+    return weightedPearsonAbout(rc, ra, w, mid, mid) - weightedPearsonAbout(rc, rb, w, mid, mid);
   };
 }
 

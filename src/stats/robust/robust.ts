@@ -18,8 +18,8 @@ import { gatherWeights, SortedColumn, sortedColumn, weightedAverageRanks, weight
  */
 export const MAX_REPLICATES = 2000;
 export const MIN_REPLICATES = 200;
-/** Row visits one bootstrap may spend before B drops below MAX_REPLICATES: 2,000 resamples of 20,000 rows. */
-const ROW_BUDGET = 4e7;
+/** Row visits one bootstrap may spend before B drops below MAX_REPLICATES: 2,000 resamples of 15,000 rows. */
+const ROW_BUDGET = 3e7;
 /** Exact jackknife (one row left out at a time) up to this many rows; interleaved groups above. */
 export const JACKKNIFE_EXACT_MAX = 2000;
 const JACKKNIFE_GROUPS = 100;
@@ -37,12 +37,13 @@ export function replicatesFor(n: number, method: Method = 'pearson'): number {
   return Math.max(MIN_REPLICATES, Math.min(MAX_REPLICATES, Math.floor(ROW_BUDGET / (n * (COST[method] ?? 1)))));
 }
 
-interface Sorted {
+export interface Sorted {
   x: SortedColumn;
   y: SortedColumn;
 }
 
-function sortedColumns(prep: PreparedPairs): Sorted {
+/** The prepared columns sorted once, as the weighted statistics read them (memoised on the prepared pairs). */
+export function sortedColumns(prep: PreparedPairs): Sorted {
   return prep.memo('robust:sorted', () => {
     const ox = argsort(prep.x);
     prep.adopt(ox);

@@ -191,9 +191,16 @@ export function weightedAverageRanks(col: SortedColumn, out: Float64Array): Floa
   let j = 0;
   while (j < n) {
     const v = sorted[j];
+    const before = cum[j];
+    if (j + 1 === n || sorted[j + 1] !== v) {
+      // A value of its own (the usual case): its c copies hold places before + 1 .. before + c.
+      const c = cum[j + 1] - before;
+      out[order[j]] = c > 0 ? before + (c + 1) / 2 : NaN;
+      j++;
+      continue;
+    }
     let end = j + 1;
     while (end < n && sorted[end] === v) end++;
-    const before = cum[j];
     const c = cum[end] - before;
     const rank = before + (c + 1) / 2;
     for (let t = j; t < end; t++) out[order[t]] = cum[t + 1] > cum[t] ? rank : NaN;
