@@ -2,7 +2,8 @@ import { percentileBounds, replicate, ResampleSource, seededResamples } from '..
 import { seedFromData } from '../bootstrap/rng';
 import { correlatePrepared } from '../correlation/correlate';
 import { PreparedPairs } from '../correlation/prepared';
-import { replicatesFor, sortedColumns, weightedStatistic } from '../robust/robust';
+import { replicatesFor, sortedColumns, statisticOnRows, SUBSAMPLE_ABOVE, usesSubsamples, weightedStatistic } from '../robust/robust';
+import { normalInterval, normalPValue, SubsampleSpread, subsampleSpread } from '../bootstrap/subsample';
 import { gatherWeights, weightedAverageRanks, weightedPearsonAbout } from '../robust/weighted';
 import { isOrdinal, Method, METHOD_LABELS, StatsInputError, Tail } from '../types';
 import { ComparisonDesign, ComparisonOptions, ComparisonResult, requireRows } from './comparison';
@@ -48,6 +49,10 @@ function compareByBootstrap(pairs: SameRowsPairs, method: Method, opts: Comparis
   requireRows(n, 'the data');
   const r1 = correlatePrepared(first, { method, tail: 'both', level: opts.level, interval: 'none' }).statistic;
   const r2 = correlatePrepared(second, { method, tail: 'both', level: opts.level, interval: 'none' }).statistic;
+  if (!opts.resamples && usesSubsamples(n, method)) {
+    const spread = subsampleSpread(n, seedFromData(...pairs.columns), (rows) => statisticOnRows(first, method, rows) - statisticOnRows(second, method, rows), (v) => v);
+    return bySubsamples(pairs.design, method, r1, r2, n, n, spread, opts, 'the rows');
+  }
   const diff = pairs.design === 'shared' && method === 'spearman' ? sharedSpearmanDifference(first, second) : null;
   const s1 = weightedStatistic(first, method);
   const s2 = weightedStatistic(second, method);
@@ -67,6 +72,24 @@ function compareByBootstrap(pairs: SameRowsPairs, method: Method, opts: Comparis
     test: { name: 'z', value: NaN },
     pMethod: `bootstrap: twice the smaller share of ${finite} resampled differences on either side of 0 (${METHOD_LABELS[method].name})`,
     n1: n, n2: n, estimateCorrelation: NaN,
+  };
+}
+
+/** The difference with a normal interval and test from a subsampling standard error (long columns). */
+function bySubsamples(
+  design: ComparisonDesign, method: Method, r1: number, r2: number, n1: number, n2: number, spread: SubsampleSpread, opts: ComparisonOptions, of: string,
+): ComparisonResult {
+  const d = r1 - r2;
+  const b = normalInterval(d, spread.se, opts.level);
+  return {
+    design, method, n: design === 'independent' ? n1 + n2 : n1, r1, r2, statistic: d, pValue: normalPValue(d, spread.se, opts.tail), tail: opts.tail,
+    interval: {
+      lower: b.lower, upper: b.upper, level: opts.level, replicates: spread.groups,
+      method: `normal interval, its standard error from ${spread.groups} random disjoint subsamples of ${of} (Politis & Romano 1994), seeded from the data`,
+    },
+    test: { name: 'z', value: d / spread.se },
+    pMethod: `z test with a subsampling standard error (${METHOD_LABELS[method].name}; over ${SUBSAMPLE_ABOVE.toLocaleString('en-US')} rows, in place of the bootstrap)`,
+    n1, n2, estimateCorrelation: design === 'independent' ? 0 : NaN,
   };
 }
 
@@ -116,6 +139,13 @@ export function compareIndependentByBootstrap(
   const n2 = g2.n;
   const r1 = correlatePrepared(g1, { method, tail: 'both', level: opts.level, interval: 'none' }).statistic;
   const r2 = correlatePrepared(g2, { method, tail: 'both', level: opts.level, interval: 'none' }).statistic;
+  if (usesSubsamples(n1 + n2, method)) {
+    // Each group's own spread; independent groups add their variances.
+    const s1 = subsampleSpread(n1, seedFromData(x1, y1), (rows) => statisticOnRows(g1, method, rows), (v) => v);
+    const s2 = subsampleSpread(n2, seedFromData(x2, y2), (rows) => statisticOnRows(g2, method, rows), (v) => v);
+    const spread = { se: Math.hypot(s1.se, s2.se), groups: Math.min(s1.groups, s2.groups), size: Math.min(s1.size, s2.size) };
+    return bySubsamples('independent', method, r1, r2, n1, n2, spread, opts, 'each group');
+  }
   const B = replicatesFor(n1 + n2, method);
   const t1 = replicate(weightedStatistic(g1, method), n1, seededResamples(n1, B, seedFromData(x1, y1)));
   const t2 = replicate(weightedStatistic(g2, method), n2, seededResamples(n2, B, seedFromData(x2, y2)));

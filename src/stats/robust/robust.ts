@@ -1,5 +1,6 @@
 import { acceleration, bcaBounds, BootstrapBounds, indexResamples, jackknifeInfluence, percentileBounds, replicate, ResampleSource, seededResamples, WeightedStatistic } from '../bootstrap/bootstrap';
 import { seedFromData } from '../bootstrap/rng';
+import { normalInterval, subsampleSpread } from '../bootstrap/subsample';
 import { kendallCounts, tauB } from '../correlation/kendall';
 import { pFromT, tFromR } from '../correlation/fisher';
 import { PreparedPairs } from '../correlation/prepared';
@@ -23,8 +24,28 @@ const ROW_BUDGET = 3e7;
 /** Exact jackknife (one row left out at a time) up to this many rows; interleaved groups above. */
 export const JACKKNIFE_EXACT_MAX = 2000;
 const JACKKNIFE_GROUPS = 100;
-/** Kendall's tau costs O(n log n) per resample: its bootstrap is limited to this many rows. */
+/** Kendall's tau costs O(n log n) per resample: above this many rows its interval comes from subsamples. */
 export const KENDALL_BOOTSTRAP_MAX = 20000;
+/** Above this many rows every bootstrap interval is replaced by one from disjoint subsamples (subsample.ts). */
+export const SUBSAMPLE_ABOVE = 100000;
+
+/** True when an interval over n rows of `method` comes from subsamples rather than a bootstrap. */
+export function usesSubsamples(n: number, method: Method): boolean {
+  return n > SUBSAMPLE_ABOVE || (method === 'kendall' && n > KENDALL_BOOTSTRAP_MAX);
+}
+
+/** The statistic of `method` on the given rows of the prepared columns alone. */
+export function statisticOnRows(prep: PreparedPairs, method: Method, rows: Uint32Array): number {
+  const m = rows.length;
+  const x = new Float64Array(m);
+  const y = new Float64Array(m);
+  for (let k = 0; k < m; k++) {
+    x[k] = prep.x[rows[k]];
+    y[k] = prep.y[rows[k]];
+  }
+  const part = new PreparedPairs(x, y);
+  return weightedStatistic(part, method)(new Int32Array(m).fill(1), m);
+}
 /** The skipped correlation re-finds its outliers in every resample while that costs no more than this many
  *  row-direction visits in all; above, the skipped rows are held fixed (stated in the interval's method). */
 const SKIPPED_BUDGET = 3e8;
@@ -136,8 +157,14 @@ const KIND_WORDS: Record<'percentile' | 'bca', string> = { percentile: 'percenti
 /** A bootstrap interval for `method` on the prepared rows; `t0` is the estimate on all rows. */
 export function bootstrapInterval(prep: PreparedPairs, method: Method, t0: number, opts: BootstrapOptions): BootstrapInterval {
   const n = prep.n;
-  if (method === 'kendall' && n > KENDALL_BOOTSTRAP_MAX) {
-    throw new StatsInputError('too-large', `a bootstrap interval for Kendall's tau is limited to ${KENDALL_BOOTSTRAP_MAX.toLocaleString('en-US')} rows (here ${n.toLocaleString('en-US')}): use the Fisher interval, or Spearman`);
+  if (!opts.resamples && usesSubsamples(n, method)) {
+    const spread = subsampleSpread(n, seedFromData(prep.x, prep.y), (rows) => statisticOnRows(prep, method, rows), (v) => Math.atanh(Math.max(-1 + 1e-15, Math.min(1 - 1e-15, v))));
+    const z0 = Math.atanh(t0);
+    const b = normalInterval(z0, spread.se, opts.level);
+    return {
+      lower: Math.min(t0, Math.tanh(b.lower)), upper: Math.max(t0, Math.tanh(b.upper)), level: opts.level, replicates: spread.groups, values: new Float64Array(0),
+      method: `normal interval on Fisher's z, its standard error from ${spread.groups} random disjoint subsamples of ${spread.size.toLocaleString('en-US')} rows (Politis & Romano 1994), seeded from the data: at ${n.toLocaleString('en-US')} rows this stands in for the ${opts.kind === 'bca' ? 'BCa' : 'percentile'} bootstrap`,
+    };
   }
   const stat = weightedStatistic(prep, method);
   const B = opts.resamples?.replicates ?? replicatesFor(n, method);

@@ -21,6 +21,12 @@ import { selectKth } from '../internal/select';
  */
 export const DIRECTIONS_ALL = 100;
 export const DIRECTIONS = 100;
+/**
+ * Above this many rows each direction's median and fourths are read from every k-th row (k = ceil(n / this)),
+ * evenly spread through the sheet, and only the flagging pass visits every row: quantiles of 50,000 values are
+ * within about 1% of those of all of them, and the rule's cost stops growing with the directions times n.
+ */
+export const THRESHOLD_SAMPLE = 50000;
 /** sqrt of the 0.975 quantile of chi-square with 2 df, which is -2 ln(0.025) exactly. */
 const CUT = Math.sqrt(-2 * Math.log(0.025));
 const MADN = 0.6744897501960817;
@@ -106,7 +112,9 @@ export function findSkippedRows(x: Float64Array, y: Float64Array): SkippedRows |
     dirs = argsort(neg).slice(0, DIRECTIONS);
   }
   const skipped = new Uint8Array(n);
-  const d = new Float64Array(n);
+  const stride = n > THRESHOLD_SAMPLE ? Math.ceil(n / THRESHOLD_SAMPLE) : 1;
+  const m = Math.ceil(n / stride);
+  const sample = new Float64Array(m);
   let used = 0;
   for (let k = 0; k < dirs.length; k++) {
     const i = dirs[k];
@@ -115,12 +123,11 @@ export function findSkippedRows(x: Float64Array, y: Float64Array): SkippedRows |
     const len = Math.sqrt(norm2[i]);
     const ui = u[i];
     const vi = v[i];
-    for (let j = 0; j < n; j++) d[j] = Math.abs(u[j] * ui + v[j] * vi) / len;
-    work.set(d);
-    const md = medianInPlace(work);
-    const [q1, q2] = idealFourths(work);
+    for (let j = 0, t = 0; j < n; j += stride, t++) sample[t] = Math.abs(u[j] * ui + v[j] * vi) / len;
+    const md = medianInPlace(sample);
+    const [q1, q2] = idealFourths(sample);
     const limit = md + CUT * (q2 - q1);
-    for (let j = 0; j < n; j++) if (d[j] > limit) skipped[j] = 1;
+    for (let j = 0; j < n; j++) if (Math.abs(u[j] * ui + v[j] * vi) / len > limit) skipped[j] = 1;
   }
   let count = 0;
   for (let j = 0; j < n; j++) count += skipped[j];

@@ -93,3 +93,32 @@ test('the seeded bootstrap: same cells, same interval and p-value, for coefficie
   expect([b.interval.lower, b.interval.upper, b.pValue]).toEqual([a.interval.lower, a.interval.upper, a.pValue]);
   expect(a.pMethod).toMatch(/bootstrap/);
 });
+
+test('over 100,000 rows the interval comes from 200 disjoint subsamples, and agrees with Fisher\'s where Fisher\'s holds', () => {
+  // Bivariate normal rows, rho = 0.5: Fisher's (1921) z interval is exact there in the limit, so a subsampling
+  // interval must have about its width (the standard error from 200 groups is itself uncertain by about 5%).
+  const n = 120000;
+  let s = 20261202;
+  const u = () => ((s = (Math.imul(s, 1664525) + 1013904223) >>> 0) + 0.5) / 4294967296;
+  const x = new Float64Array(n);
+  const y = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const a = Math.sqrt(-2 * Math.log(u())) * Math.cos(2 * Math.PI * u());
+    const b = Math.sqrt(-2 * Math.log(u())) * Math.cos(2 * Math.PI * u());
+    x[i] = a;
+    y[i] = 0.5 * a + Math.sqrt(0.75) * b;
+  }
+  const fisher = correlate(x, y, { method: 'pearson', tail: 'both', level: 0.95 });
+  const sub = correlate(x, y, { method: 'pearson', tail: 'both', level: 0.95, interval: 'bca' });
+  expect(sub.interval.method).toMatch(/200 random disjoint subsamples of 600 rows \(Politis & Romano 1994\)/);
+  const ratio = (sub.interval.upper - sub.interval.lower) / (fisher.interval.upper - fisher.interval.lower);
+  expect(ratio).toBeGreaterThan(0.8);
+  expect(ratio).toBeLessThan(1.2);
+  // The same cells, the same subsamples.
+  const again = correlate(x.slice(), y.slice(), { method: 'pearson', tail: 'both', level: 0.95, interval: 'bca' });
+  expect([again.interval.lower, again.interval.upper]).toEqual([sub.interval.lower, sub.interval.upper]);
+  // Kendall above 20,000 rows uses the same route instead of refusing.
+  const k = correlate(x.subarray(0, 30000), y.subarray(0, 30000), { method: 'kendall', tail: 'both', level: 0.95, interval: 'percentile' });
+  expect(k.interval.method).toMatch(/subsamples/);
+  expect(k.interval.lower).toBeLessThan(k.statistic);
+});
