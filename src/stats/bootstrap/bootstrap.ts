@@ -161,3 +161,21 @@ export function bcaBounds(replicates: Float64Array, t0: number, L: Float64Array,
   const { values, extreme } = normalInterpolatedQuantiles(replicates, adjusted);
   return { lower: values[0], upper: values[1], note: extreme ? EXTREME_NOTE : undefined };
 }
+
+/** Twice the smaller share of replicates on either side of 0 (two-sided), or the one share a tail asks for. */
+export function bootstrapShareP(values: Float64Array, tail: 'both' | 'positive' | 'negative'): { p: number; finite: number } {
+  let atOrBelow = 0;
+  let atOrAbove = 0;
+  let finite = 0;
+  for (const v of values) {
+    if (!Number.isFinite(v)) continue;
+    finite++;
+    if (v <= 0) atOrBelow++;
+    if (v >= 0) atOrAbove++;
+  }
+  const lower = atOrBelow / finite;
+  const upper = atOrAbove / finite;
+  const p = tail === 'positive' ? lower : tail === 'negative' ? upper : Math.min(1, 2 * Math.min(lower, upper));
+  return { p, finite };
+}
+

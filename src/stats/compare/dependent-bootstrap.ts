@@ -1,11 +1,11 @@
-import { percentileBounds, replicate, ResampleSource, seededResamples } from '../bootstrap/bootstrap';
+import { bootstrapShareP, percentileBounds, replicate, ResampleSource, seededResamples } from '../bootstrap/bootstrap';
 import { seedFromData } from '../bootstrap/rng';
 import { correlatePrepared } from '../correlation/correlate';
 import { PreparedPairs } from '../correlation/prepared';
 import { replicatesFor, sortedColumns, statisticOnRows, SUBSAMPLE_ABOVE, usesSubsamples, weightedStatistic } from '../robust/robust';
 import { normalInterval, normalPValue, SubsampleSpread, subsampleSpread } from '../bootstrap/subsample';
 import { gatherWeights, weightedAverageRanks, weightedPearsonAbout } from '../robust/weighted';
-import { isOrdinal, Method, METHOD_LABELS, StatsInputError, Tail } from '../types';
+import { isOrdinal, Method, METHOD_LABELS, StatsInputError } from '../types';
 import { ComparisonDesign, ComparisonOptions, ComparisonResult, requireRows } from './comparison';
 
 /** Two correlations on the same rows, as two prepared pairs of columns. */
@@ -15,23 +15,6 @@ interface SameRowsPairs {
   second: PreparedPairs;
   /** The columns behind the seed. */
   columns: ArrayLike<number>[];
-}
-
-/** Twice the smaller share of replicates on either side of 0 (two-sided), or the one share a tail asks for. */
-export function bootstrapShareP(values: Float64Array, tail: Tail): { p: number; finite: number } {
-  let atOrBelow = 0;
-  let atOrAbove = 0;
-  let finite = 0;
-  for (const v of values) {
-    if (!Number.isFinite(v)) continue;
-    finite++;
-    if (v <= 0) atOrBelow++;
-    if (v >= 0) atOrAbove++;
-  }
-  const lower = atOrBelow / finite;
-  const upper = atOrAbove / finite;
-  const p = tail === 'positive' ? lower : tail === 'negative' ? upper : Math.min(1, 2 * Math.min(lower, upper));
-  return { p, finite };
 }
 
 /**

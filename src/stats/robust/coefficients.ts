@@ -1,4 +1,4 @@
-import { gatherWeights, SortedColumn, weightedDeviationKth, weightedKth, weightedMad, weightedMedian } from './weighted';
+import { centredRatio, gatherWeights, ratioOfSums, SortedColumn, weightedDeviationKth, weightedKth, weightedMad, weightedMedian } from './weighted';
 
 /**
  * The robust coefficients, each a function of two sorted columns and row weights (see weighted.ts), so that one
@@ -83,9 +83,7 @@ function bendCorrelation(xv: Float64Array, yv: Float64Array, w: Int32Array, px: 
     saa += ca * a;
     sbb += c * b * b;
   }
-  if (!(saa > 0) || !(sbb > 0)) return NaN;
-  const r = sab / Math.sqrt(saa * sbb);
-  return r > 1 ? 1 : r < -1 ? -1 : r;
+  return ratioOfSums(sab, saa, sbb);
 }
 
 /** Rows set to each tail's bound by 20% winsorizing: g = floor(0.2 n). */
@@ -137,12 +135,7 @@ function clampedPearson(xv: Float64Array, yv: Float64Array, w: Int32Array, xlo: 
     saa += ca * a;
     sbb += cb * b;
   }
-  const cab = sab - (sa * sb) / sw;
-  const caa = saa - (sa * sa) / sw;
-  const cbb = sbb - (sb * sb) / sw;
-  if (!(caa > 0) || !(cbb > 0) || xhi === xlo || yhi === ylo) return NaN;
-  const r = cab / Math.sqrt(caa * cbb);
-  return r > 1 ? 1 : r < -1 ? -1 : r;
+  return xhi === xlo || yhi === ylo ? NaN : centredRatio(sw, sa, sb, sab, saa, sbb);
 }
 
 /**
@@ -184,7 +177,5 @@ function biweightCorrelation(xv: Float64Array, yv: Float64Array, w: Int32Array, 
     saa += ca * a;
     sbb += c * b * b;
   }
-  if (!(saa > 0) || !(sbb > 0)) return NaN;
-  const r = sab / Math.sqrt(saa * sbb);
-  return r > 1 ? 1 : r < -1 ? -1 : r;
+  return ratioOfSums(sab, saa, sbb);
 }

@@ -1,4 +1,4 @@
-import { acceleration, bcaBounds, BootstrapBounds, indexResamples, jackknifeInfluence, percentileBounds, replicate, ResampleSource, seededResamples, WeightedStatistic } from '../bootstrap/bootstrap';
+import { acceleration, bcaBounds, BootstrapBounds, bootstrapShareP, indexResamples, jackknifeInfluence, percentileBounds, replicate, ResampleSource, seededResamples, WeightedStatistic } from '../bootstrap/bootstrap';
 import { seedFromData } from '../bootstrap/rng';
 import { normalInterval, subsampleSpread } from '../bootstrap/subsample';
 import { kendallCounts, tauB } from '../correlation/kendall';
@@ -271,18 +271,7 @@ function skippedResult(prep: PreparedPairs, tail: Tail, boot: BootstrapOptions):
   if (redetect) {
     const interval = bootstrapInterval(prep, 'skipped', r, boot);
     const { values, ...shown } = interval;
-    let below = 0;
-    let above = 0;
-    let finite = 0;
-    for (const v of values) {
-      if (!Number.isFinite(v)) continue;
-      finite++;
-      if (v <= 0) below++;
-      if (v >= 0) above++;
-    }
-    const sharePos = below / finite; // evidence against rho > 0 is the share at or below 0
-    const shareNeg = above / finite;
-    const p = tail === 'positive' ? sharePos : tail === 'negative' ? shareNeg : Math.min(1, 2 * Math.min(sharePos, shareNeg));
+    const { p, finite } = bootstrapShareP(values, tail);
     const test: TestStatistic = { name: 'z', value: NaN };
     return {
       method: 'skipped', name: 'skipped Pearson', statistic: r, pValue: p, tail, interval: { ...shown, method: `${shown.method}; outliers re-found in every resample` }, n,

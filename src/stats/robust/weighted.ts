@@ -138,9 +138,19 @@ export function weightedPearson(a: Float64Array, b: Float64Array, w: Int32Array)
     saa += wi * da * da;
     sbb += wi * db * db;
   }
+  return ratioOfSums(sab, saa, sbb);
+}
+
+/** r = sab / sqrt(saa sbb) from sums of products, clipped to [-1, 1]; NaN when either sum of squares is 0. */
+export function ratioOfSums(sab: number, saa: number, sbb: number): number {
   if (!(saa > 0) || !(sbb > 0)) return NaN;
   const r = sab / Math.sqrt(saa * sbb);
   return r > 1 ? 1 : r < -1 ? -1 : r;
+}
+
+/** Pearson's r from weighted sums about fixed centres: the centring corrections applied, then ratioOfSums. */
+export function centredRatio(sw: number, sa: number, sb: number, sab: number, saa: number, sbb: number): number {
+  return ratioOfSums(sab - (sa * sb) / sw, saa - (sa * sa) / sw, sbb - (sb * sb) / sw);
 }
 
 /**
@@ -172,12 +182,7 @@ export function weightedPearsonAbout(a: Float64Array, b: Float64Array, w: Int32A
     saa += cda * da;
     sbb += cdb * db;
   }
-  const cab = sab - (sa * sb) / sw;
-  const caa = saa - (sa * sa) / sw;
-  const cbb = sbb - (sb * sb) / sw;
-  if (!(caa > 0) || !(cbb > 0)) return NaN;
-  const r = cab / Math.sqrt(caa * cbb);
-  return r > 1 ? 1 : r < -1 ? -1 : r;
+  return centredRatio(sw, sa, sb, sab, saa, sbb);
 }
 
 /**
