@@ -21,6 +21,7 @@ import { integrate } from '../internal/quadrature';
 import { studentTSf } from './student-t';
 import { tFromR } from '../correlation/fisher';
 import { StatsInputError } from '../types';
+import { lnGamma } from './gamma-beta';
 
 /** log(cosh x), accurate near 0 (via cosh x - 1 = 2 sinh^2(x/2)) and free of overflow for large |x|. */
 export function logCosh(x: number): number {
@@ -32,12 +33,42 @@ export function logCosh(x: number): number {
   return a - Math.LN2 + Math.log1p(Math.exp(-2 * a));
 }
 
+/** 2F1(a, b; c; x) by its power series, for |x| small enough that it converges quickly (x <= 0.1 here). */
+function seriesNearZero(a: number, b: number, c: number, x: number): number {
+  let term = 1;
+  let sum = 1;
+  for (let k = 0; k < 100_000; k++) {
+    term *= ((k + a) * (k + b) * x) / ((k + c) * (k + 1));
+    sum += term;
+    if (Math.abs(term) < 1e-17 * Math.abs(sum)) break;
+  }
+  return sum;
+}
+
+/** Below this c - 1 (= n - 3/2 for the density of r) the series near x = 1 needs the transformation below; above
+ * it the series needs at most about a thousand terms even at x = 1 - 1e-14, and keeps full accuracy. */
+const SLOW_SERIES_M = 10;
+
 /**
- * Gauss's hypergeometric function 2F1(1/2, 1/2; c; x) for c >= 1/2 and 0 <= x < 1, by its power series. Each
- * term is the previous times (k + 1/2)^2 x / ((k + c)(k + 1)) < x, so the remainder after a term t is below
- * t x / (1 - x); summation stops when that is under 1e-17 of the sum.
+ * Gauss's hypergeometric function 2F1(1/2, 1/2; c; x) for c >= 1/2 and 0 <= x < 1.
+ * - By its power series: each term is the previous times (k + 1/2)^2 x / ((k + c)(k + 1)) < x, so the remainder
+ *   after a term t is below t x / (1 - x); summation stops when that is under 1e-17 of the sum.
+ * - For x > 0.9 with m = c - 1 below 10 and not a whole number, that series would need up to millions of terms
+ *   (its terms fall only like k^-(m+1)), so it is mapped to 1 - x by the connection formula of Abramowitz & Stegun
+ *   (1964), Handbook of Mathematical Functions, eq. 15.3.6, with a = b = 1/2 and c - a - b = m:
+ *     2F1 = G(c) G(m) / G(c - 1/2)^2 2F1(1/2, 1/2; 1 - m; 1 - x)
+ *         + (1 - x)^m G(c) G(-m) / pi 2F1(c - 1/2, c - 1/2; m + 1; 1 - x),
+ *   both series in 1 - x < 0.1. (With whole-number m, which only a fractional n gives, the plain series is kept.)
  */
 export function hypergeometricHalves(c: number, x: number): number {
+  const m = c - 1;
+  if (x > 0.9 && m < SLOW_SERIES_M && Math.abs(m - Math.round(m)) > 1e-6) {
+    const y = 1 - x;
+    const first = Math.exp(lnGamma(c) + lnGamma(m) - 2 * lnGamma(c - 0.5)) * seriesNearZero(0.5, 0.5, 1 - m, y);
+    // G(-m) = -pi / (sin(pi m) G(1 + m)) (reflection), so G(c) G(-m) / pi = -G(c) / (sin(pi m) G(1 + m)).
+    const coef = -Math.exp(lnGamma(c) - lnGamma(1 + m)) / Math.sin(Math.PI * m);
+    return first + Math.pow(y, m) * coef * seriesNearZero(c - 0.5, c - 0.5, m + 1, y);
+  }
   let term = 1;
   let sum = 1;
   const tailFactor = x / (1 - x);
