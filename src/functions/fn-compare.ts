@@ -8,7 +8,7 @@ import { compareSharedSamples } from '../stats/compare/shared';
 import { ComparisonResult, requireRows } from '../stats/compare/comparison';
 import { assertMatrixFits, correlationMatrix, MATRIX_SHOWS, MatrixShow } from '../stats/compare/matrix';
 import { partialCorrelation } from '../stats/compare/partial';
-import { CellRange, rangeShape, readHeaderRow } from '../sheet/cells';
+import { CellRange, filledRowCount, rangeShape, readHeaderRow } from '../sheet/cells';
 import { Method, StatsInputError } from '../stats/types';
 import { optClassicalMethod, optFlag, optLevel, optMethod, optTail, optionWord, requiredNumber } from './args';
 import { guard } from './errors';
@@ -144,10 +144,13 @@ export function MATRIX(data: any[][], method?: string, show?: string, headers?: 
     // Refuse an oversized request from its dimensions alone, before reading any cell.
     const { rows, cols } = rangeShape(data as CellRange, 'data');
     if (cols < 2) throw new StatsInputError('too-few', 'data must hold at least 2 columns side by side');
-    const dataRows = rows - (hasHeaders ? 1 : 0);
+    const skip = hasHeaders ? 1 : 0;
+    // The cost follows the filled rows: a whole-column reference is judged by the data it holds.
+    const dataRows = filledRowCount(data as CellRange, skip);
+    if (rows - skip < 1) throw new StatsInputError('too-few', 'data holds no rows below its header');
     assertMatrixFits(cols, dataRows, m);
     const names = hasHeaders ? readHeaderRow(data, 'data') : undefined;
-    const columns = readBlock(data, 'data', hasHeaders ? 1 : 0);
+    const columns = readBlock(dataRows + skip < rows ? data.slice(0, dataRows + skip) : data, 'data', skip);
     const res = correlationMatrix(columns, m, names);
     const k = res.k;
     const source = what === 'coef' ? res.coef : what === 'pvalue' ? res.pValue : what === 'pvalue_holm' ? res.pHolm : what === 'pvalue_fdr' ? res.pFdr : res.pairs;

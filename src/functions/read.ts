@@ -3,7 +3,7 @@
  * as a number (cells.ts), complete rows (pairs.ts) and blanks passed as zeros (blanks.ts). No mathematics here.
  */
 import { refuseBlanksAsZeros } from '../sheet/blanks';
-import { assertSameSize, CellRange, ColumnAllocator, rangeShape, readColumns, readVector, vectorLength } from '../sheet/cells';
+import { assertSameSize, CellRange, ColumnAllocator, lastNumberIndex, rangeShape, readColumns, readVector, vectorLength } from '../sheet/cells';
 import { completeRows } from '../sheet/pairs';
 import { StatsInputError } from '../stats/types';
 
@@ -106,6 +106,16 @@ export function readWithControls(
   } else {
     if (rows !== n) {
       throw new StatsInputError('unequal-length', `controls must line up with x: x has ${n} rows, controls has ${rows}`);
+    }
+    // Rows after the last number in x or y are incomplete whatever the controls hold: read only up to there.
+    const used = Math.max(lastNumberIndex(x, 'x'), lastNumberIndex(y, 'y')) + 1;
+    if (used < n) {
+      const cut = (r: CellRange) => r.slice(0, Math.max(used, 1));
+      controlColumns = readColumns(cut(controls), 'controls');
+      const all = [readVector(cut(x), 'x'), readVector(cut(y), 'y'), ...controlColumns];
+      refuseBlanksAsZeros(all, 'x, y and controls', 'B2:D500', false);
+      const kept = completeRows(all).columns;
+      return { x: kept[0], y: kept[1], controls: kept.slice(2) };
     }
     controlColumns = readColumns(controls, 'controls');
   }

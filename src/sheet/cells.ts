@@ -118,6 +118,21 @@ export function lastNumberIndex(range: CellRange, name: string): number {
   return -1;
 }
 
+/**
+ * Rows of a block up to its last row holding a number in any column (from row `skipRows` on), scanning from the
+ * end: a whole-column reference with 1,000 filled rows counts 1,000, so size limits and reads follow the data,
+ * not the 1,048,576 rows of the reference. Rows past the data can only hold blanks or text, which no
+ * correlation counts.
+ */
+export function filledRowCount(range: CellRange, skipRows = 0): number {
+  for (let i = range.length - 1; i >= skipRows; i--) {
+    const row = range[i];
+    if (!Array.isArray(row)) continue;
+    for (let j = 0; j < row.length; j++) if (typeof row[j] === 'number') return i + 1 - skipRows;
+  }
+  return 0;
+}
+
 /** Columns of a range, in order, with NaN where a cell does not count. `skipRows` leading rows are left out. */
 export function readColumns(range: CellRange, name: string, skipRows = 0): Float64Array[] {
   const { rows, cols } = rangeShape(range, name);
