@@ -100,20 +100,24 @@ function safely(key: CheckKey, test: string, build: () => CheckRow): CheckRow {
 
 /**
  * How far rounding alone can move a residual of this fit, the same in any row order (it depends only on the
- * largest magnitudes and the slope). A fitted value a + b x_i rounds at about eps (max |y| + |b| max |x|), and the
+ * largest magnitudes and the slope). A fitted value mean(y) + b (x_i - mean(x)) rounds at about eps (max |y| + |b|
+ * max |x - mean(x)|), plus |b| times the rounding of mean(x) (one unit in its last place, the same in every row), and the
  * slope, a ratio of sums over n rows, carries an error that grows like sqrt(n) eps (the statistical rule of thumb
  * for summation, Higham 2002, Accuracy and Stability of Numerical Algorithms, 2nd ed., SIAM, sec. 2.8), which moves
- * a residual by at most that much times |b| (max |x| + |mean x|). 16 sqrt(n) eps leaves a wide margin over both
+ * a residual by at most that much times |b| max |x - mean(x)|. 16 sqrt(n) eps leaves a wide margin over both
  * while staying far below any scatter a measurement can show (about 1e-13 of the data's magnitude at 40 rows).
  */
 function residualNoise(x: ArrayLike<number>, y: ArrayLike<number>, fit: LineFit): number {
-  let xMax = 0;
+  let xDev = 0;
   let yMax = 0;
   for (let i = 0; i < fit.n; i++) {
-    xMax = Math.max(xMax, Math.abs(x[i]));
+    xDev = Math.max(xDev, Math.abs(x[i] - fit.meanX));
     yMax = Math.max(yMax, Math.abs(y[i]));
   }
-  return 16 * Math.sqrt(fit.n) * Number.EPSILON * (yMax + Math.abs(fit.slope) * xMax);
+  // The fitted values are formed about the mean of x (fitLine), so rounding scales with the spread of x, not with
+  // its offset; the offset enters once, through the rounding of the mean itself, which shifts every residual alike.
+  const b = Math.abs(fit.slope);
+  return 16 * Math.sqrt(fit.n) * Number.EPSILON * (yMax + b * xDev) + 2 * Number.EPSILON * b * Math.abs(fit.meanX);
 }
 
 /**

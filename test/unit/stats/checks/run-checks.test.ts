@@ -202,3 +202,23 @@ describe('bad input', () => {
     expect(runChecks(s.x, s.y, { alpha: 0.05, pointName: (i) => `column ${'BCDEFGHIJKL'[i]}` }).flags).toContain('outlier at column D');
   });
 });
+
+test('x far from zero (1e15 + k, 5e14 + k) with noisy y: the checks run, as the coefficient does', () => {
+  // Integers from 1e15 are exact doubles and their spread is 29, so nothing about the data is lost to the offset;
+  // before, the rounding allowance grew with |x| itself and called 6 of 8 checks "not testable".
+  let s = 9;
+  const u = () => ((s = (Math.imul(s, 1664525) + 1013904223) >>> 0) + 0.5) / 4294967296;
+  const noise = Array.from({ length: 30 }, () => 6 * (u() - 0.5));
+  const base = runChecks(Array.from({ length: 30 }, (_, k) => k), noise.map((e, k) => k + e), { alpha: 0.05 });
+  for (const off of [1e15, 5e14]) {
+    const x = Array.from({ length: 30 }, (_, k) => off + k);
+    const r = runChecks(x, noise.map((e, k) => k + e), { alpha: 0.05 });
+    expect(r.checks.filter((c) => c.verdict === 'not testable').map((c) => c.key)).toEqual([]);
+    // Shifting x changes nothing a check looks at: the same verdicts as at offset 0.
+    expect(r.checks.map((c) => c.verdict)).toEqual(base.checks.map((c) => c.verdict));
+    expect(r.flags).toEqual(base.flags);
+  }
+  // A line that is exact stays "on the line" at the offset.
+  const exact = runChecks(Array.from({ length: 30 }, (_, k) => 1e15 + k), Array.from({ length: 30 }, (_, k) => 2 * k + 1), { alpha: 0.05 });
+  expect(exact.checks.filter((c) => c.verdict === 'not testable').length).toBeGreaterThanOrEqual(5);
+});
