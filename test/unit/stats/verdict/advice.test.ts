@@ -87,7 +87,8 @@ test('a clean sample of 30: the checks that cannot see at 30 rows keep "as it st
   expect(rec2.reason).toMatch(/Wilcox 1994/);
   expect(rec2.reason).toMatch(/r_pb = 0\.41 against Pearson's r = 0\.62, a shift of 0\.21/);
   // Spearman, if chosen, already resists the outlier and is kept.
-  expect(recommendCoefficient(rep2, correlate(heavy.x, heavy.y, opts('spearman'))).changed).toBe(false);
+  const kept = recommendCoefficient(rep2, correlate(heavy.x, heavy.y, opts('spearman')));
+  expect([kept.name, kept.changed, kept.remedy]).toEqual(['Spearman', false, 'robust']);
 });
 
 test('a negative correlation whose interval includes zero reads with no direction', () => {
