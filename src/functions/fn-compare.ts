@@ -6,7 +6,7 @@ import { compareIndependent, compareIndependentSamples } from '../stats/compare/
 import { compareSeparateSamples } from '../stats/compare/separate';
 import { compareSharedSamples } from '../stats/compare/shared';
 import { ComparisonResult, requireRows } from '../stats/compare/comparison';
-import { assertMatrixFits, correlationMatrix, MATRIX_SHOWS, MatrixShow } from '../stats/compare/matrix';
+import { assertMatrixFits, correlationMatrix, MATRIX_LIMITS, MATRIX_SHOWS, MatrixShow } from '../stats/compare/matrix';
 import { partialCorrelation } from '../stats/compare/partial';
 import { CellRange, filledRowCount, rangeShape, readHeaderRow } from '../sheet/cells';
 import { Method, StatsInputError } from '../stats/types';
@@ -145,10 +145,18 @@ export function MATRIX(data: any[][], method?: string, show?: string, headers?: 
     const { rows, cols } = rangeShape(data as CellRange, 'data');
     if (cols < 2) throw new StatsInputError('too-few', 'data must hold at least 2 columns side by side');
     const skip = hasHeaders ? 1 : 0;
-    // The cost follows the filled rows: a whole-column reference is judged by the data it holds.
-    const dataRows = filledRowCount(data as CellRange, skip);
-    if (rows - skip < 1) throw new StatsInputError('too-few', 'data holds no rows below its header');
-    assertMatrixFits(cols, dataRows, m);
+    // Judged first from the range's size alone; a request that looks too large is judged again by its filled
+    // rows, found from the bottom up, so a whole-column reference counts the data it holds (a full block costs
+    // one cell read to find that out).
+    let dataRows = rows - skip;
+    try {
+      assertMatrixFits(cols, dataRows, m);
+    } catch (e) {
+      if (!(e instanceof StatsInputError) || cols > MATRIX_LIMITS.maxColumns) throw e;
+      dataRows = filledRowCount(data as CellRange, skip);
+      if (dataRows === rows - skip) throw e;
+      assertMatrixFits(cols, dataRows, m);
+    }
     const names = hasHeaders ? readHeaderRow(data, 'data') : undefined;
     const columns = readBlock(dataRows + skip < rows ? data.slice(0, dataRows + skip) : data, 'data', skip);
     const res = correlationMatrix(columns, m, names);
