@@ -1,7 +1,8 @@
 /* A small static file server for dist/, on the loopback interface only. It serves the workbench at "/", sends
  * each file with its content type, and gives an HTML page the same Content-Security-Policy header as the page's
  * own <meta> policy (the header also covers what a meta tag cannot, such as the policy being in force before the
- * page's first byte is parsed). Only GET and HEAD; no directory listings; no file outside dist/; no dotfiles.
+ * page's first byte is parsed, and frame-ancestors). Only GET and HEAD; only requests addressed to localhost
+ * (421 otherwise); headers within 5 s; no directory listings; no file outside dist/; no dotfiles.
  * Written here rather than taken from a package so that `npm start` has no server dependency to audit. */
 'use strict';
 const fs = require('fs');
@@ -67,9 +68,26 @@ function send(res, status, headers, body) {
   res.end(body);
 }
 
+/**
+ * True when the Host header names this server on the loopback interface. Anything else is refused (421), so a
+ * page elsewhere cannot reach the server by pointing its own host name at 127.0.0.1 (DNS rebinding).
+ */
+function hostAllowed(host, port) {
+  if (typeof host !== 'string') return false;
+  const h = host.toLowerCase();
+  return ['localhost', '127.0.0.1', '[::1]'].some((name) => h === name || h === `${name}:${port}`);
+}
+
+/** Pages that only the project itself frames (the workbench embeds nothing of Office): not framable elsewhere. */
+const OWN_PAGES = new Set(['workbench.html']);
+
 /** The request handler for a dist folder. */
-function distHandler(dist) {
+function distHandler(dist, portOf) {
   return (req, res) => {
+    if (!hostAllowed(req.headers.host, portOf())) {
+      send(res, 421, { 'Content-Type': 'text/plain; charset=utf-8', Connection: 'close' }, 'Misdirected request: this server answers only as localhost\n');
+      return;
+    }
     if (req.method !== 'GET' && req.method !== 'HEAD') {
       send(res, 405, { Allow: 'GET, HEAD', 'Content-Type': 'text/plain; charset=utf-8' }, 'Method not allowed\n');
       return;
@@ -92,8 +110,12 @@ function distHandler(dist) {
         'Referrer-Policy': 'no-referrer',
       };
       if (ext === '.html') {
+        const own = OWN_PAGES.has(path.basename(file));
         const policy = metaPolicy(body.toString('utf8'));
-        if (policy) headers['Content-Security-Policy'] = policy;
+        // frame-ancestors cannot be set by a <meta> policy, only by the header. The task pane is left framable:
+        // Office on the web shows it in a frame of its own pages.
+        if (policy) headers['Content-Security-Policy'] = own ? `${policy}; frame-ancestors 'self'` : policy;
+        if (own) headers['X-Frame-Options'] = 'SAMEORIGIN';
       }
       res.writeHead(200, { 'X-Content-Type-Options': 'nosniff', 'Cache-Control': 'no-cache', ...headers });
       res.end(req.method === 'HEAD' ? undefined : body);
@@ -106,9 +128,20 @@ function distHandler(dist) {
  * browser tries first). Port 0 picks a free port. Resolves with the port and a close function.
  * @param {{ dist: string, port: number, tls?: { key: Buffer, cert: Buffer, ca?: Buffer } }} options
  */
+/**
+ * Time limits that keep a client from holding a connection open by sending its headers slowly: headers within
+ * 5 s, the whole request within 10 s, checked every second (Node's default check runs every 30 s).
+ */
+const LIMITS = { headersTimeout: 5000, requestTimeout: 10000, connectionsCheckingInterval: 1000, keepAliveTimeout: 5000 };
+
 function serveDist({ dist, port, tls }) {
-  const handler = distHandler(dist);
-  const make = () => (tls ? https.createServer(tls, handler) : http.createServer(handler));
+  let bound = port;
+  const handler = distHandler(dist, () => bound);
+  const make = () => {
+    const server = tls ? https.createServer({ ...tls, ...LIMITS }, handler) : http.createServer(LIMITS, handler);
+    server.keepAliveTimeout = LIMITS.keepAliveTimeout;
+    return server;
+  };
   const servers = [];
   const listen = (server, p, host) =>
     new Promise((resolve, reject) => {
@@ -121,6 +154,7 @@ function serveDist({ dist, port, tls }) {
   return (async () => {
     const v4 = make();
     const actual = await listen(v4, port, '127.0.0.1');
+    bound = actual;
     servers.push(v4);
     const v6 = make();
     try {
@@ -134,4 +168,4 @@ function serveDist({ dist, port, tls }) {
   })();
 }
 
-module.exports = { serveDist, metaPolicy, fileFor, CONTENT_TYPES };
+module.exports = { serveDist, metaPolicy, fileFor, hostAllowed, CONTENT_TYPES, LIMITS };

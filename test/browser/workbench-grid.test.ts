@@ -65,12 +65,12 @@ describe('the workbench page', () => {
     await screenshot(page(), 'workbench-loaded');
   });
 
-  test('the policy is sent as a header and matches the page meta tag', async () => {
+  test('the policy is sent as a header: the page meta tag plus frame-ancestors, which only a header can carry', async () => {
     const header = (globalThis as { cspHeader?: string }).cspHeader;
     const meta = await page().locator('meta[http-equiv="Content-Security-Policy"]').getAttribute('content');
     expect(meta).toMatch(/default-src 'none'/);
     expect(meta).toMatch(/script-src 'self'/);
-    expect(header).toBe(meta);
+    expect(header).toBe(`${meta}; frame-ancestors 'self'`);
   });
 });
 
