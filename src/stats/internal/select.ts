@@ -33,3 +33,23 @@ export function selectKth(a: NumberArray, k: number): number {
   }
   return a[k];
 }
+
+/**
+ * The k-th smallest value (0-based) of `a` and the one after it in sorted order (Infinity when k is the last),
+ * reordering `a`: after selection everything right of k is at least a[k], so the next order statistic is their
+ * minimum, one pass more.
+ */
+export function selectKthAndNext(a: NumberArray, k: number): [number, number] {
+  const v = selectKth(a, k);
+  let next = Infinity;
+  for (let i = k + 1; i < a.length; i++) if (a[i] < next) next = a[i];
+  return [v, next];
+}
+
+/** The k-th smallest value (0-based) and the one before it in sorted order (-Infinity when k is 0), reordering `a`. */
+export function selectKthAndPrevious(a: NumberArray, k: number): [number, number] {
+  const v = selectKth(a, k);
+  let previous = -Infinity;
+  for (let i = 0; i < k; i++) if (a[i] > previous) previous = a[i];
+  return [v, previous];
+}

@@ -7,7 +7,7 @@
  * Pure.
  */
 
-import { selectKth } from '../internal/select';
+import { selectKth, selectKthAndNext } from '../internal/select';
 import { borrowF64, giveBack } from '../internal/scratch';
 
 /**
@@ -26,11 +26,8 @@ export function typeSevenQuantiles(values: ArrayLike<number>, probabilities: num
   const out = probabilities.map((p) => {
     const h = (n - 1) * p;
     const lo = Math.floor(h);
-    const a = selectKth(work, lo);
-    if (lo + 1 >= n || h === lo) return a;
-    // After selecting lo, everything right of it is >= a: the next order statistic is their minimum.
-    let b = Infinity;
-    for (let i = lo + 1; i < n; i++) if (work[i] < b) b = work[i];
+    if (lo + 1 >= n || h === lo) return selectKth(work, lo);
+    const [a, b] = selectKthAndNext(work, lo);
     return a + (h - lo) * (b - a);
   });
   giveBack(work);

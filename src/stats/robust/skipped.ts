@@ -1,5 +1,5 @@
 import { argsort } from '../internal/sort';
-import { selectKth } from '../internal/select';
+import { selectKth, selectKthAndNext, selectKthAndPrevious } from '../internal/select';
 
 /**
  * Bivariate outliers for the skipped correlation: Wilcox (2004), "Inferences based on a skipped correlation
@@ -40,14 +40,8 @@ export function idealFourths(a: Float64Array): [number, number] {
   const f = n / 4 + 5 / 12;
   const j = Math.floor(f);
   const h = f - j;
-  // Lower pair: the j-th smallest, then the smallest of what lies above it.
-  const lj = selectKth(a, j - 1);
-  let lj1 = Infinity;
-  for (let i = j; i < n; i++) if (a[i] < lj1) lj1 = a[i];
-  const k = n - j + 1;
-  const uk = selectKth(a, k - 1);
-  let uk1 = -Infinity;
-  for (let i = 0; i < k - 1; i++) if (a[i] > uk1) uk1 = a[i];
+  const [lj, lj1] = selectKthAndNext(a, j - 1);
+  const [uk, uk1] = selectKthAndPrevious(a, n - j);
   return [(1 - h) * lj + h * lj1, (1 - h) * uk + h * uk1];
 }
 /** E|Z| * sqrt(pi/2) = 1: the mean absolute deviation of a normal is sigma sqrt(2/pi); 1.2533 = sqrt(pi/2). */
@@ -57,10 +51,8 @@ const MEAN_ABS_TO_SD = 1.2533141373155003;
 function medianInPlace(a: Float64Array): number {
   const n = a.length;
   const k = (n - 1) >> 1;
-  const lo = selectKth(a, k);
-  if (n % 2 === 1) return lo;
-  let hi = Infinity;
-  for (let i = k + 1; i < n; i++) if (a[i] < hi) hi = a[i];
+  if (n % 2 === 1) return selectKth(a, k);
+  const [lo, hi] = selectKthAndNext(a, k);
   return (lo + hi) / 2;
 }
 
