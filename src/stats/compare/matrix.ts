@@ -9,7 +9,7 @@ import { benjaminiHochbergAdjust, holmAdjust } from './p-adjust';
 import { assertVaries, clipUnit, pearsonFromMoments } from '../correlation/pearson';
 import { averageRanks } from '../correlation/ranks';
 import { isRobust, Method, METHOD_LABELS, StatsInputError } from '../types';
-import { replicatesFor } from '../robust/robust';
+import { replicatesFor, skippedRedetects } from '../robust/robust';
 
 /** What a matrix cell can show. */
 export type MatrixShow = 'coef' | 'pvalue' | 'pvalue_holm' | 'pvalue_fdr' | 'pairs';
@@ -71,7 +71,7 @@ function pairMicroseconds(kind: CostKind, rows: number): number {
   if (kind === 'robust') return 100 + 0.8 * rows;
   if (kind === 'skipped') {
     const once = 0.02 * rows * Math.min(rows, 100);
-    return 100 + (rows * Math.min(rows, 100) * replicatesFor(rows) <= 3e8 ? once * (1 + replicatesFor(rows)) : once + 0.1 * rows * replicatesFor(rows));
+    return 100 + (skippedRedetects(rows) ? once * (1 + replicatesFor(rows)) : once + 0.1 * rows * replicatesFor(rows));
   }
   // argsort (internal/sort.ts) sorts by comparison below 64 keys and by 11-bit radix passes from 64 on.
   return rows < 64 ? 25 + 0.5 * rows : 40 + 0.25 * rows;

@@ -40,13 +40,13 @@ export class PreparedPairs {
     return this.memo('moments', () => coMoments(this.x, this.y));
   }
 
+  /** x's sorted order, shared by Spearman's ranks and the robust coefficients' sorted columns. */
+  get sortedX(): KeyedOrder {
+    return this.memo('sortedX', () => argsortKeyed(this.x));
+  }
+
   get ranksX(): Float64Array {
-    return this.memo('ranksX', () => {
-      const sorted = argsortKeyed(this.x);
-      const ranks = averageRanks(this.x, sorted.order);
-      releaseKeyedOrder(sorted);
-      return ranks;
-    });
+    return this.memo('ranksX', () => averageRanks(this.x, this.sortedX.order));
   }
 
   /** y's sorted order, shared by Spearman's ranks and Kendall's counts. */
@@ -75,8 +75,10 @@ export class PreparedPairs {
    * an owner that knows nothing else still reads them (the cell functions' cache, on eviction).
    */
   release(): void {
-    const sortedY = this.memos.get('sortedY') as KeyedOrder | undefined;
-    if (sortedY) releaseKeyedOrder(sortedY);
+    for (const key of ['sortedX', 'sortedY']) {
+      const sorted = this.memos.get(key) as KeyedOrder | undefined;
+      if (sorted) releaseKeyedOrder(sorted);
+    }
     const fit = this.memos.get('fit') as LineFit | undefined;
     giveBack(this.memos.get('ranksX') as Float64Array | undefined, this.memos.get('ranksY') as Float64Array | undefined);
     if (fit) giveBack(fit.fitted, fit.residuals);

@@ -4,10 +4,9 @@ import { normalInterval, subsampleSpread } from '../bootstrap/subsample';
 import { kendallCounts, tauB } from '../correlation/kendall';
 import { pFromT, tFromR } from '../correlation/fisher';
 import { PreparedPairs } from '../correlation/prepared';
-import { argsort } from '../internal/sort';
 import { CorrelationResult, Interval, IntervalMethod, Method, RobustMethod, StatsInputError, Tail, TestStatistic } from '../types';
 import { biweight, percentageBend, RobustStatistic, winsorized, winsorizedCount, BEND } from './coefficients';
-import { findSkippedRows } from './skipped';
+import { DIRECTIONS, findSkippedRows } from './skipped';
 import { gatherWeights, SortedColumn, sortedColumn, weightedAverageRanks, weightedMad, weightedMedian, weightedPearson, weightedPearsonAbout, weightedDeviationKth } from './weighted';
 
 /**
@@ -50,6 +49,11 @@ export function statisticOnRows(prep: PreparedPairs, method: Method, rows: Uint3
  *  row-direction visits in all; above, the skipped rows are held fixed (stated in the interval's method). */
 const SKIPPED_BUDGET = 3e8;
 
+/** True when the skipped correlation's bootstrap re-finds the outliers in every resample at n rows. */
+export function skippedRedetects(n: number): boolean {
+  return n * Math.min(n, DIRECTIONS) * replicatesFor(n) <= SKIPPED_BUDGET;
+}
+
 /** Relative cost of one resample per row: ranking both columns costs about twice a scored coefficient. */
 const COST: Partial<Record<Method, number>> = { spearman: 2 };
 
@@ -65,11 +69,7 @@ export interface Sorted {
 
 /** The prepared columns sorted once, as the weighted statistics read them (memoised on the prepared pairs). */
 export function sortedColumns(prep: PreparedPairs): Sorted {
-  return prep.memo('robust:sorted', () => {
-    const ox = argsort(prep.x);
-    prep.adopt(ox);
-    return { x: sortedColumn(prep.x, ox), y: sortedColumn(prep.y, prep.sortedY.order) };
-  });
+  return prep.memo('robust:sorted', () => ({ x: sortedColumn(prep.x, prep.sortedX.order), y: sortedColumn(prep.y, prep.sortedY.order) }));
 }
 
 /** The rows of a weighted resample written out, in row order (each row as many times as it was drawn). */
@@ -265,8 +265,7 @@ function skippedResult(prep: PreparedPairs, tail: Tail, boot: BootstrapOptions):
   const skippedRows: number[] = [];
   for (let i = 0; i < n; i++) if (found.skipped[i]) skippedRows.push(i);
   const r = found.r;
-  const directions = Math.min(n, 100);
-  const redetect = n * directions * replicatesFor(n) <= SKIPPED_BUDGET || boot.resamples !== undefined;
+  const redetect = skippedRedetects(n) || boot.resamples !== undefined;
   const setAside = `${skippedRows.length} of ${n} rows set aside as bivariate outliers (projection rule)`;
   if (redetect) {
     const interval = bootstrapInterval(prep, 'skipped', r, boot);
