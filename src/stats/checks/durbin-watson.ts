@@ -1,3 +1,4 @@
+import { goldenSectionMinimum } from '../internal/golden-section';
 import { powerOfTwoScale } from '../correlation/comoments';
 import { normalPdf, normalSf } from '../distributions';
 import { StatsInputError } from '../types';
@@ -219,29 +220,7 @@ export function dwSaddlepointTails(u: ArrayLike<number>, d: number): { below: nu
   const lo = (-1 / (2 * d)) * (1 - 1e-9);
   const hi = (1 / (2 * (4 - d))) * (1 - 1e-9);
   // Golden-section minimisation of the convex K.
-  let a = lo;
-  let b = hi;
-  const g = (Math.sqrt(5) - 1) / 2;
-  let x1 = b - g * (b - a);
-  let x2 = a + g * (b - a);
-  let f1 = K(x1);
-  let f2 = K(x2);
-  for (let it = 0; it < 200 && b - a > 1e-13 * Math.max(Math.abs(a), Math.abs(b)); it++) {
-    if (f1 < f2) {
-      b = x2;
-      x2 = x1;
-      f2 = f1;
-      x1 = b - g * (b - a);
-      f1 = K(x1);
-    } else {
-      a = x1;
-      x1 = x2;
-      f1 = f2;
-      x2 = a + g * (b - a);
-      f2 = K(x2);
-    }
-  }
-  const sHat = (a + b) / 2;
+  const sHat = goldenSectionMinimum(K, lo, hi, (p, q) => q - p <= 1e-13 * Math.max(Math.abs(p), Math.abs(q)));
   const kHat = K(sHat);
   const h = 1e-4 * Math.min(Math.abs(sHat) + 1e-6, sHat - lo, hi - sHat);
   const k2 = (K(sHat + h) - 2 * kHat + K(sHat - h)) / (h * h);

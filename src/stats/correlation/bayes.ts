@@ -13,6 +13,7 @@
  * 1/sqrt(n) at every n, factored around its mode so that BF10 may be astronomically large or small without
  * overflow (log BF10 is kept).
  */
+import { goldenSectionMinimum } from '../internal/golden-section';
 import { integrate } from '../internal/quadrature';
 import { hypergeometricHalves, logCosh } from '../distributions/r-distribution';
 import { lnBeta } from '../distributions';
@@ -78,29 +79,8 @@ export function bayesCorrelation(r: number, n: number, opts: BayesOptions = {}):
   // The mode: golden sections on a bracket around z and 0 (the log integrand is unimodal: a log-concave prior
   // times a likelihood whose log is concave in zeta near its peak).
   const width = 1 / Math.sqrt(Math.max(1, n - 1.5));
-  let a0 = Math.min(z, 0) - 20 * width - 2;
-  let b0 = Math.max(z, 0) + 20 * width + 2;
-  const g = (Math.sqrt(5) - 1) / 2;
-  let x1 = b0 - g * (b0 - a0);
-  let x2 = a0 + g * (b0 - a0);
-  let f1 = logIntegrand(x1);
-  let f2 = logIntegrand(x2);
-  for (let it = 0; it < 200 && b0 - a0 > 1e-12; it++) {
-    if (f1 > f2) {
-      b0 = x2;
-      x2 = x1;
-      f2 = f1;
-      x1 = b0 - g * (b0 - a0);
-      f1 = logIntegrand(x1);
-    } else {
-      a0 = x1;
-      x1 = x2;
-      f1 = f2;
-      x2 = a0 + g * (b0 - a0);
-      f2 = logIntegrand(x2);
-    }
-  }
-  const mode = (a0 + b0) / 2;
+  // Its maximum, as the minimum of its negative.
+  const mode = goldenSectionMinimum((v) => -logIntegrand(v), Math.min(z, 0) - 20 * width - 2, Math.max(z, 0) + 20 * width + 2, (p, q) => q - p <= 1e-12);
   const peak = logIntegrand(mode);
   // The integrand falls at least like exp(-(n - 3/2 + 2a)|zeta - mode|) far from the mode and like a normal curve
   // of width ~1/sqrt(n) near it: this window leaves out less than e^-60 of the mass.
