@@ -20,6 +20,9 @@ export type FormulaNode =
 /** Which rows of a table column a structured reference means: the data (default), the header, or both. */
 export type TablePart = 'data' | 'headers' | 'all';
 
+/** Functions may nest 64 deep in a formula, as in Excel; deeper text is refused before it can exhaust the stack. */
+export const MAX_NESTING = 64;
+
 export class FormulaSyntaxError extends Error {
   constructor(message: string) {
     super(message);
@@ -46,6 +49,7 @@ export function references(node: FormulaNode): Extract<FormulaNode, { kind: 'ref
 
 class Parser {
   private pos = 0;
+  private depth = 0;
   constructor(private readonly text: string, private readonly homeSheet: string) {}
 
   parseWhole(): FormulaNode {
@@ -226,11 +230,15 @@ class Parser {
   }
 
   private readCall(name: string): FormulaNode {
+    if (++this.depth > MAX_NESTING) {
+      throw new FormulaSyntaxError(`functions are nested more than ${MAX_NESTING} deep (the most a spreadsheet formula allows); split the formula into cells`);
+    }
     this.pos++; // (
     const args: FormulaNode[] = [];
     this.skipSpace();
     if (this.peek() === ')') {
       this.pos++;
+      this.depth--;
       return { kind: 'call', name, args };
     }
     for (;;) {
@@ -243,6 +251,7 @@ class Parser {
       }
       if (c === ')') {
         this.pos++;
+        this.depth--;
         return { kind: 'call', name, args };
       }
       this.fail(c === '' ? `${name}( is missing its closing ")"` : `expected "," or ")" but found "${c}"`);
