@@ -33,6 +33,17 @@ export class WorkbookEditor {
     return this.calculator.recalc(changed, formulas);
   }
 
+  /** Clears an area (Delete on a selection), visiting only the cells that hold something; resolves when the
+   *  formulas that read it are done. */
+  clear(area: Area): Promise<void> {
+    const name = this.model.sheet(area.sheet)?.name ?? area.sheet;
+    const cut: Area = { ...area, sheet: name };
+    if (!this.model.clearArea(cut)) return Promise.resolve();
+    const changed = [cut, ...this.model.layoutSpills(name)];
+    this.model.notify(changed);
+    return this.calculator.recalc(changed);
+  }
+
   /** Recalculates every formula (used once the function host is ready). */
   recalcAll(): Promise<void> {
     return this.calculator.recalc('all');

@@ -39,7 +39,26 @@ export class SheetData {
   spilled = new Map<string, string>();
   /** Formula cells whose result could not spill. */
   blocked = new Set<string>();
+  /** The used extent, kept up to date as cells are added and recomputed after a boundary cell is cleared. */
+  extent: { rows: number; columns: number } | undefined;
   constructor(public name: string) {}
+}
+
+/** A formula reading an area, as the readers' index holds it. */
+interface Reader {
+  f: FormulaCell;
+  area: Area;
+  /** The formula's place in entry order, so answers come in a stable order. */
+  seq: number;
+}
+
+/** Read areas wider than this many columns are kept in a sheet's list of wide readers, not per column. */
+const WIDE_READ = 32;
+
+/** Who reads what, per sheet: narrow reads by column, wide ones in a list scanned for every query. */
+interface ReadersIndex {
+  version: number;
+  bySheet: Map<string, { columns: Map<number, Reader[]>; wide: Reader[] }>;
 }
 
 export const cellKey = (row: number, column: number): string => `${row}:${column}`;
@@ -54,6 +73,10 @@ export class WorkbookModel implements CellSource {
   readonly sheets: SheetData[] = [];
   readonly tables: TableBlock[] = [];
   private readonly listeners = new Set<ChangeListener>();
+  /** Bumped whenever what a formula reads may have changed (a formula entered or removed, a table grown or
+   *  renamed): the readers' index is rebuilt on the next query. */
+  private readsVersion = 0;
+  private readers: ReadersIndex | undefined;
 
   onChange(listener: ChangeListener): () => void {
     this.listeners.add(listener);
@@ -82,6 +105,7 @@ export class WorkbookModel implements CellSource {
 
   addTable(table: TableBlock): void {
     this.tables.push(table);
+    this.readsVersion++;
   }
 
   table(name: string): TableBlock | undefined {
@@ -98,8 +122,9 @@ export class WorkbookModel implements CellSource {
     if (!s) throw new Error(`no sheet named ${sheetName}`);
     const key = cellKey(row, column);
     const entry = readEntry(typed);
-    s.formulas.delete(key);
-    s.values.delete(key);
+    if (s.formulas.delete(key)) this.readsVersion++;
+    if (s.values.delete(key) || entry.kind === 'formula') this.shrinkExtent(s, row, column);
+    if (this.isTableHeaderCell(s.name, row, column)) this.readsVersion++;
     let formula: FormulaCell | undefined;
     if (entry.kind === 'formula') {
       formula = { sheet: s.name, row, column, text: entry.text, refs: [] };
@@ -111,16 +136,71 @@ export class WorkbookModel implements CellSource {
         formula.result = [[errorValue('#NAME?', `this formula could not be read: ${formula.syntaxError}`)]];
       }
       s.formulas.set(key, formula);
+      this.readsVersion++;
     } else if (entry.value !== null) {
       s.values.set(key, entry.value);
     }
-    if (entry.kind === 'formula' || entry.value !== null) this.growTables(s.name, row, column);
+    if (entry.kind === 'formula' || entry.value !== null) {
+      this.growExtent(s, row, column);
+      this.growTables(s.name, row, column);
+    }
     return formula;
+  }
+
+  /**
+   * Clears every entry inside an area, visiting only the cells that hold something (clearing A1:Z1048576 costs
+   * what the sheet holds, not 27 million cells). Returns whether anything changed.
+   */
+  clearArea(area: Area): boolean {
+    const s = this.sheet(area.sheet);
+    if (!s) return false;
+    const inside = (key: string): boolean => {
+      const [r, c] = splitKey(key);
+      return r >= area.top && r <= area.bottom && c >= area.left && c <= area.right;
+    };
+    let changed = false;
+    for (const key of [...s.values.keys()]) {
+      if (inside(key)) {
+        s.values.delete(key);
+        changed = true;
+      }
+    }
+    for (const key of [...s.formulas.keys()]) {
+      if (inside(key)) {
+        s.formulas.delete(key);
+        changed = true;
+        this.readsVersion++;
+      }
+    }
+    if (changed) {
+      s.extent = undefined;
+      if (this.tables.some((t) => t.sheet.toLowerCase() === s.name.toLowerCase() && t.top >= area.top && t.top <= area.bottom)) this.readsVersion++;
+    }
+    return changed;
+  }
+
+  private growExtent(s: SheetData, row: number, column: number): void {
+    if (!s.extent) return;
+    if (row > s.extent.rows) s.extent.rows = row;
+    if (column > s.extent.columns) s.extent.columns = column;
+  }
+
+  /** A cell on the used extent's edge was emptied: the extent is worked out again when next asked. */
+  private shrinkExtent(s: SheetData, row: number, column: number): void {
+    if (s.extent && (row >= s.extent.rows || column >= s.extent.columns)) s.extent = undefined;
+  }
+
+  private isTableHeaderCell(sheet: string, row: number, column: number): boolean {
+    const lower = sheet.toLowerCase();
+    return this.tables.some((t) => t.sheet.toLowerCase() === lower && t.top === row && column >= t.left && column <= t.right);
   }
 
   private growTables(sheet: string, row: number, column: number): void {
     for (const t of this.tables) {
-      if (t.sheet.toLowerCase() === sheet.toLowerCase() && row === t.bottom + 1 && column >= t.left && column <= t.right) t.bottom = row;
+      if (t.sheet.toLowerCase() === sheet.toLowerCase() && row === t.bottom + 1 && column >= t.left && column <= t.right) {
+        t.bottom = row;
+        this.readsVersion++;
+      }
     }
   }
 
@@ -174,17 +254,24 @@ export class WorkbookModel implements CellSource {
   /** Rows and columns in use on a sheet (values, formulas and spilled results). */
   usedExtent(sheetName: string): { rows: number; columns: number } {
     const s = this.sheet(sheetName);
-    let rows = 0;
-    let columns = 0;
-    if (!s) return { rows, columns };
-    for (const key of [...s.values.keys(), ...s.formulas.keys(), ...s.spilled.keys()]) {
-      const [r, c] = splitKey(key);
-      if (r > rows) rows = r;
-      if (c > columns) columns = c;
+    if (!s) return { rows: 0, columns: 0 };
+    if (!s.extent) {
+      let rows = 0;
+      let columns = 0;
+      for (const keys of [s.values.keys(), s.formulas.keys(), s.spilled.keys()]) {
+        for (const key of keys) {
+          const [r, c] = splitKey(key);
+          if (r > rows) rows = r;
+          if (c > columns) columns = c;
+        }
+      }
+      s.extent = { rows, columns };
     }
-    return { rows, columns };
+    return { ...s.extent };
   }
 
+  /** The cells of an area as rows; whole columns stop at the sheet's last used row (callers that must not build
+   *  huge arrays cut the area first: see clipToUsed in formula-evaluator.ts). */
   readArea(area: Area): CellValue[][] | { error: string; message?: string } {
     const s = this.sheet(area.sheet);
     if (!s) return errorValue('#REF!', `there is no sheet named ${area.sheet}`);
@@ -216,6 +303,7 @@ export class WorkbookModel implements CellSource {
   setResult(f: FormulaCell, result: FormulaResult): boolean {
     const old = f.result;
     f.result = result;
+    if (this.isTableHeaderCell(f.sheet, f.row, f.column)) this.readsVersion++;
     if (!old || old.length !== result.length || old[0].length !== result[0].length) return true;
     for (let r = 0; r < result.length; r++) for (let c = 0; c < result[r].length; c++) if (!sameValue(old[r][c], result[r][c])) return true;
     return false;
@@ -254,6 +342,7 @@ export class WorkbookModel implements CellSource {
       if (free) for (const k of cells) spilled.set(k, anchor);
       else blocked.add(anchor);
     }
+    if (spilled.size !== before.size || [...spilled.keys()].some((k) => !before.has(k))) s.extent = undefined;
     s.spilled = spilled;
     s.blocked = blocked;
     const changed: Area[] = [];
@@ -283,9 +372,52 @@ export class WorkbookModel implements CellSource {
     return out;
   }
 
-  /** Formulas that read any of the areas. */
+  /**
+   * Formulas that read any of the areas, in the order they were entered. Answered from an index of who reads
+   * which columns, so the cost follows the formulas that read there, not every formula of the workbook.
+   */
   formulasReading(areas: Area[]): FormulaCell[] {
-    return this.allFormulas().filter((f) => this.readsOf(f).some((r) => areas.some((a) => intersects(r, a))));
+    const index = this.readersIndex();
+    const found = new Map<FormulaCell, number>();
+    const consider = (r: Reader, a: Area) => {
+      if (!found.has(r.f) && intersects(r.area, a)) found.set(r.f, r.seq);
+    };
+    for (const a of areas) {
+      const bucket = index.bySheet.get(a.sheet.toLowerCase());
+      if (!bucket) continue;
+      for (const r of bucket.wide) consider(r, a);
+      if (a.right - a.left + 1 <= WIDE_READ * 4) {
+        for (let c = a.left; c <= a.right; c++) for (const r of bucket.columns.get(c) ?? []) consider(r, a);
+      } else {
+        for (const list of bucket.columns.values()) for (const r of list) consider(r, a);
+      }
+    }
+    return [...found].sort((p, q) => p[1] - q[1]).map(([f]) => f);
+  }
+
+  private readersIndex(): ReadersIndex {
+    if (this.readers && this.readers.version === this.readsVersion) return this.readers;
+    const bySheet: ReadersIndex['bySheet'] = new Map();
+    let seq = 0;
+    for (const f of this.allFormulas()) {
+      seq++;
+      for (const area of this.readsOf(f)) {
+        const key = area.sheet.toLowerCase();
+        let bucket = bySheet.get(key);
+        if (!bucket) bySheet.set(key, (bucket = { columns: new Map(), wide: [] }));
+        const reader = { f, area, seq };
+        if (area.right - area.left + 1 > WIDE_READ) bucket.wide.push(reader);
+        else {
+          for (let c = area.left; c <= area.right; c++) {
+            const list = bucket.columns.get(c);
+            if (list) list.push(reader);
+            else bucket.columns.set(c, [reader]);
+          }
+        }
+      }
+    }
+    this.readers = { version: this.readsVersion, bySheet };
+    return this.readers;
   }
 
   /** Header texts of a table as shown; a blank header reads "Column" + its position, as Excel names it. */
