@@ -6,7 +6,7 @@
  * in an argument answers the formula without calling the function, as Excel does. The call itself runs in the
  * formula worker, which hosts dist/functions.js.
  */
-import { Area, cellName, formatArea, quoteSheet } from './a1';
+import { Area, cellName, formatArea, MAX_ROW, quoteSheet } from './a1';
 import { CellValue, ErrorValue, errorValue, isErrorValue, Scalar } from './cell-values';
 import { FormulaNode } from './formula-parser';
 import type { FunctionHost } from './function-host';
@@ -19,6 +19,33 @@ export interface CellSource {
   readArea(area: Area): CellValue[][] | ErrorValue;
   /** The cells a table column reference covers now (tables grow), or #REF! when the table or column is gone. */
   tableColumnArea(table: string, column: string, part: 'data' | 'headers' | 'all'): Area | ErrorValue;
+  /** Rows and columns in use on a sheet: cells past them are all empty. */
+  usedExtent(sheet: string): { rows: number; columns: number };
+}
+
+/**
+ * Cuts the range arguments of one call to the sheet's used extent before any array is built, keeping ranges of
+ * the same nominal height (or width) the same size as each other: the cells cut off are all empty, so the call
+ * answers as it would on the full ranges, and =F(A1:XFD1048576, ...) costs what the sheet holds, not 17 billion
+ * cells. Every range keeps at least one row and column.
+ */
+export function clipToUsed(areas: Area[], usedExtent: (sheet: string) => { rows: number; columns: number }): Area[] {
+  const height = (a: Area) => (a.bottom === Infinity ? MAX_ROW : a.bottom) - a.top + 1;
+  const width = (a: Area) => a.right - a.left + 1;
+  const rowsNeeded = new Map<number, number>();
+  const columnsNeeded = new Map<number, number>();
+  for (const a of areas) {
+    const used = usedExtent(a.sheet);
+    const h = height(a);
+    const w = width(a);
+    rowsNeeded.set(h, Math.max(rowsNeeded.get(h) ?? 1, Math.min(h, used.rows - a.top + 1)));
+    columnsNeeded.set(w, Math.max(columnsNeeded.get(w) ?? 1, Math.min(w, used.columns - a.left + 1)));
+  }
+  return areas.map((a) => ({
+    ...a,
+    bottom: a.top + (rowsNeeded.get(height(a)) ?? 1) - 1,
+    right: a.left + (columnsNeeded.get(width(a)) ?? 1) - 1,
+  }));
 }
 
 /** The cell a formula sits in (for invocation.address). */
@@ -61,7 +88,7 @@ export class FormulaEvaluator {
       case 'tableref': {
         const area = node.kind === 'ref' ? node.area : this.cells.tableColumnArea(node.table, node.column, node.part);
         if (isErrorValue(area)) return single(area);
-        const rows = this.cells.readArea(area);
+        const rows = this.cells.readArea(clipToUsed([area], (sheet) => this.cells.usedExtent(sheet))[0]);
         return isErrorValue(rows) ? single(rows) : rows.map((r) => r.map((v) => (v === null ? 0 : v)));
       }
       case 'call':
@@ -69,11 +96,11 @@ export class FormulaEvaluator {
     }
   }
 
-  private async argument(node: FormulaNode, site: FormulaSite): Promise<ArgumentValue | ErrorValue> {
+  private async argument(node: FormulaNode, site: FormulaSite, clipped: Map<FormulaNode, Area>): Promise<ArgumentValue | ErrorValue> {
     if (node.kind === 'omitted') return { rows: [[null]], address: '', literal: true, omitted: true };
     if (node.kind === 'literal') return { rows: [[node.value]], address: '', literal: true, omitted: false };
     if (node.kind === 'ref' || node.kind === 'tableref') {
-      const area = node.kind === 'ref' ? node.area : this.cells.tableColumnArea(node.table, node.column, node.part);
+      const area = clipped.get(node) ?? (node.kind === 'ref' ? node.area : this.cells.tableColumnArea(node.table, node.column, node.part));
       if (isErrorValue(area)) return area;
       const rows = this.cells.readArea(area);
       if (isErrorValue(rows)) return rows;
@@ -100,9 +127,22 @@ export class FormulaEvaluator {
       return single(errorValue('#VALUE!', `${FUNCTION_NAMESPACE}.${meta.name} takes at most ${params.length} argument${params.length === 1 ? '' : 's'}`));
     }
 
+    // The range arguments, cut together to the used extent (see clipToUsed).
+    const refNodes: FormulaNode[] = [];
+    const refAreas: Area[] = [];
+    for (const node of argNodes) {
+      if (node.kind !== 'ref' && node.kind !== 'tableref') continue;
+      const area = node.kind === 'ref' ? node.area : this.cells.tableColumnArea(node.table, node.column, node.part);
+      if (isErrorValue(area)) continue;
+      refNodes.push(node);
+      refAreas.push(area);
+    }
+    const cut = clipToUsed(refAreas, (sheet) => this.cells.usedExtent(sheet));
+    const clipped = new Map<FormulaNode, Area>(refNodes.map((n, i) => [n, cut[i]]));
+
     const evaluated: ArgumentValue[] = [];
     for (const node of argNodes) {
-      const arg = await this.argument(node, site);
+      const arg = await this.argument(node, site, clipped);
       if (isErrorValue(arg)) return single(arg);
       const err = firstError(arg.rows);
       if (err) return single(err);
