@@ -1,11 +1,13 @@
 /**
  * The editable grid: a plain DOM table of the active sheet with column letters and row numbers, a name box and a
- * formula bar above it, and sheet tabs below. Click selects a cell, shift-click or drag selects a range, a column or
+ * formula bar above it, and sheet tabs below. Only the part of the sheet in view (and a margin round it) is in the
+ * DOM; spacers stand for the rest, so going to XFD1048576 draws as many cells as going to A1. Click selects a cell, shift-click or drag selects a range, a column or
  * row header selects that column or row; typing, F2 or a double-click edits; Enter, Tab and the arrows move;
  * Delete clears. Every cell's text is set with textContent: what a cell holds is data, never markup.
  */
-import { Area, cellName, columnLetters, formatArea, intersects, parseArea } from './a1';
+import { Area, cellName, columnLetters, formatArea, intersects, MAX_COLUMN, MAX_ROW, parseArea } from './a1';
 import { displayValue } from './cell-format';
+import { isErrorValue } from './cell-values';
 import type { WorkbookEditor } from './workbook-editor';
 import type { WorkbookModel } from './workbook-model';
 
@@ -14,15 +16,25 @@ interface CellPos {
   column: number;
 }
 
-/** Extra empty rows and columns drawn past the used range, so there is room to type. */
+/** Extra empty rows and columns past the used range, so there is room to type. */
 const SPARE_ROWS = 12;
 const SPARE_COLUMNS = 3;
 const MIN_ROWS = 40;
 const MIN_COLUMNS = 12;
-/** Rows drawn at most; a bigger sheet keeps its data but draws only the first rows. */
-const MAX_DRAWN_ROWS = 5000;
+/** Rows and columns drawn beyond the visible part on each side, so a short scroll needs no redraw. */
+const BUFFER_ROWS = 20;
+const BUFFER_COLUMNS = 4;
+/** A sheet this small is drawn whole in that direction (no redraw on scrolling); larger ones in a window. */
+const WHOLE_ROWS = 200;
+const WHOLE_COLUMNS = 40;
+/** A row's height in pixels, as the stylesheet sets it (22px cells, border included). */
+const ROW_HEIGHT = 22;
+/** Columns past this one keep the standard width (fitting reads cells; a sheet may reach column XFD). */
+const FIT_COLUMNS = 256;
 /** Column widths in pixels: the row-number column, and the range a fitted column stays within. */
 const ROW_HEAD_WIDTH = 44;
+/** Pixels per digit of a row number, so that row 1,048,576 fits its head. */
+const ROW_HEAD_DIGIT = 8;
 const MIN_COLUMN_WIDTH = 64;
 const MAX_COLUMN_WIDTH = 320;
 /** Average width of a character of the grid's 13px font, for fitting columns to their text. */
@@ -43,12 +55,19 @@ export class GridView {
   private sheetName: string;
   private anchor: CellPos = { row: 1, column: 1 };
   private focus: CellPos = { row: 1, column: 1 };
-  private drawnRows = 0;
-  private drawnColumns = 0;
+  /** The scrollable size of the sheet: its used extent, room to type, and the selection. */
+  private extentRows = 0;
+  private extentColumns = 0;
+  /** Column widths (index = column number) and their running sums (left edge of each column past the row head). */
+  private widths: number[] = [];
+  private lefts: number[] = [];
+  /** The block of cells in the DOM now. */
+  private win = { top: 1, bottom: 0, left: 1, right: 0 };
+  private redrawPending = false;
   private tableSignature = '';
   private cells = new Map<string, HTMLTableCellElement>();
-  private rowHeads: HTMLTableCellElement[] = [];
-  private columnHeads: HTMLTableCellElement[] = [];
+  private rowHeads = new Map<number, HTMLTableCellElement>();
+  private columnHeads = new Map<number, HTMLTableCellElement>();
   private marked: HTMLElement[] = [];
   private flashed: HTMLElement[] = [];
   private flashTimer: number | undefined;
@@ -91,11 +110,21 @@ export class GridView {
     this.scroller.append(this.table);
 
     this.note = el('div', 'wb-note');
+    this.note.dataset.testid = 'cell-message';
+    this.note.setAttribute('role', 'status');
     this.tabs = el('div', 'wb-tabs');
     this.tabs.setAttribute('role', 'tablist');
     root.append(bar, this.scroller, this.note, this.tabs);
 
     this.wireEvents();
+    this.scroller.addEventListener('scroll', () => {
+      if (this.redrawPending) return;
+      this.redrawPending = true;
+      requestAnimationFrame(() => {
+        this.redrawPending = false;
+        if (!this.editing) this.drawWindow(false);
+      });
+    });
     model.onChange((areas) => this.onModelChange(areas));
     this.render();
   }
@@ -128,9 +157,9 @@ export class GridView {
     this.sheetName = s.name;
     this.anchor = { row: 1, column: 1 };
     this.focus = { row: 1, column: 1 };
-    this.render();
     this.scroller.scrollTop = 0;
     this.scroller.scrollLeft = 0;
+    this.render();
     this.selectionChanged();
   }
 
@@ -139,10 +168,9 @@ export class GridView {
     this.showSheet(area.sheet);
     this.anchor = { row: area.top, column: area.left };
     this.focus = { row: area.bottom === Infinity ? this.lastUsedRow() : area.bottom, column: area.right };
-    this.ensureDrawn(this.focus);
+    this.ensureExtent();
+    this.scrollToCell(this.anchor, 'center');
     this.paintSelection();
-    const target = this.cells.get(`${area.top}:${area.left}`);
-    target?.scrollIntoView({ block: 'center', inline: 'nearest' });
     if (options.flash) this.flash(area);
     this.selectionChanged();
   }
@@ -153,8 +181,8 @@ export class GridView {
     if (!s) throw new Error(`no sheet named ${sheet}`);
     const columns = Math.max(1, this.model.usedExtent(s.name).columns);
     this.select({ sheet: s.name, top: row, bottom: row, left: 1, right: columns }, { flash: true });
-    this.rowHeads[row - 1]?.scrollIntoView({ block: 'center', inline: 'nearest' });
     this.scroller.scrollLeft = 0;
+    this.drawWindow(false);
   }
 
   // ---- drawing -------------------------------------------------------------------------------------------
@@ -173,58 +201,145 @@ export class GridView {
       .join('|');
   }
 
-  /** Draws the whole active sheet (on load, on a sheet switch, and when the sheet outgrows what was drawn). */
+  /** Lays out the active sheet (extent and column widths) and draws the part in view: on load, on a sheet
+   *  switch, and when the sheet outgrows its extent or its tables change. */
   render(): void {
     this.editing = null;
+    this.layout();
+    this.drawWindow(true);
+    this.renderTabs();
+    this.paintSelection();
+  }
+
+  private layout(): void {
     const used = this.model.usedExtent(this.sheetName);
-    this.drawnRows = Math.min(MAX_DRAWN_ROWS, Math.max(MIN_ROWS, used.rows + SPARE_ROWS, this.focus.row + 1));
-    this.drawnColumns = Math.max(MIN_COLUMNS, used.columns + SPARE_COLUMNS, this.focus.column + 1);
+    const reach = Math.max(this.focus.row, this.anchor.row);
+    const reachColumn = Math.max(this.focus.column, this.anchor.column);
+    this.extentRows = Math.min(MAX_ROW, Math.max(MIN_ROWS, used.rows + SPARE_ROWS, reach + SPARE_ROWS));
+    this.extentColumns = Math.min(MAX_COLUMN, Math.max(MIN_COLUMNS, used.columns + SPARE_COLUMNS, reachColumn + SPARE_COLUMNS));
     this.tableSignature = this.currentTableSignature();
+    this.widths = [0];
+    this.lefts = [0, 0];
+    for (let c = 1; c <= this.extentColumns; c++) {
+      const w = c <= Math.min(used.columns, FIT_COLUMNS) ? this.fitWidth(c, used.rows) : MIN_COLUMN_WIDTH;
+      this.widths.push(w);
+      this.lefts.push(this.lefts[c] + w);
+    }
+  }
+
+  /** Grows the extent (without redrawing what is in view) when the selection reaches past it. */
+  private ensureExtent(): void {
+    const reach = Math.max(this.focus.row, this.anchor.row);
+    const reachColumn = Math.max(this.focus.column, this.anchor.column);
+    if (reach + 1 > this.extentRows || reachColumn + 1 > this.extentColumns) {
+      this.layout();
+      this.drawWindow(true);
+    }
+  }
+
+  /** The row-number column: wide enough for the last row number drawn. */
+  private rowHeadWidth(): number {
+    return Math.max(ROW_HEAD_WIDTH, String(this.win.bottom).length * ROW_HEAD_DIGIT + 14);
+  }
+
+  /** The block of cells to draw for the current scroll position. */
+  private wantedWindow(): { top: number; bottom: number; left: number; right: number } {
+    const height = this.scroller.clientHeight || 900;
+    const width = this.scroller.clientWidth || 1000;
+    const firstRow = Math.floor(this.scroller.scrollTop / ROW_HEIGHT) + 1;
+    const rowsInView = Math.ceil(height / ROW_HEIGHT) + 1;
+    const wholeRows = this.extentRows <= WHOLE_ROWS;
+    const wholeColumns = this.extentColumns <= WHOLE_COLUMNS;
+    const top = wholeRows ? 1 : Math.max(1, firstRow - BUFFER_ROWS);
+    const bottom = wholeRows ? this.extentRows : Math.min(this.extentRows, firstRow + rowsInView + BUFFER_ROWS);
+    const firstColumn = this.columnAt(this.scroller.scrollLeft);
+    const lastColumn = this.columnAt(this.scroller.scrollLeft + width);
+    const left = wholeColumns ? 1 : Math.max(1, firstColumn - BUFFER_COLUMNS);
+    const right = wholeColumns ? this.extentColumns : Math.min(this.extentColumns, lastColumn + BUFFER_COLUMNS);
+    return { top, bottom, left, right };
+  }
+
+  /** The column whose span holds horizontal position x (pixels from the first column's left edge). */
+  private columnAt(x: number): number {
+    let lo = 1;
+    let hi = this.extentColumns;
+    while (lo < hi) {
+      const mid = (lo + hi + 1) >> 1;
+      if (this.lefts[mid] <= x) lo = mid;
+      else hi = mid - 1;
+    }
+    return lo;
+  }
+
+  /** Draws the part of the sheet in view, when it is not already drawn (or always, when forced). */
+  private drawWindow(force: boolean): void {
+    const want = this.wantedWindow();
+    const w = this.win;
+    const covered = want.top >= w.top && want.bottom <= w.bottom && want.left >= w.left && want.right <= w.right;
+    if (covered && !force) return;
+    this.win = want;
+    const { top, bottom, left, right } = want;
     this.cells = new Map();
+    this.rowHeads = new Map();
+    this.columnHeads = new Map();
     this.marked = [];
     this.flashed = [];
+    const total = this.lefts[this.extentColumns + 1];
+    const before = this.lefts[left];
+    const after = total - this.lefts[right + 1];
 
     const colgroup = el('colgroup');
     const corner = el('col', 'wb-col-rowhead');
-    corner.style.width = `${ROW_HEAD_WIDTH}px`;
+    corner.style.width = `${this.rowHeadWidth()}px`;
     colgroup.append(corner);
-    let tableWidth = ROW_HEAD_WIDTH;
-    for (let c = 1; c <= this.drawnColumns; c++) {
+    const spacerCol = (width: number) => {
       const col = el('col');
-      const width = this.fitWidth(c, used.rows);
       col.style.width = `${width}px`;
-      tableWidth += width;
       colgroup.append(col);
-    }
+    };
+    if (before > 0) spacerCol(before);
+    for (let c = left; c <= right; c++) spacerCol(this.widths[c]);
+    if (after > 0) spacerCol(after);
     // A fixed layout needs the table's width: long text is then cut with an ellipsis (the full text is in the
     // formula bar), as in a spreadsheet.
-    this.table.style.width = `${tableWidth}px`;
+    this.table.style.width = `${this.rowHeadWidth() + total}px`;
 
     const thead = el('thead');
     const headRow = el('tr');
-    const cornerCell = el('th', 'wb-corner');
-    headRow.append(cornerCell);
-    this.columnHeads = [];
-    for (let c = 1; c <= this.drawnColumns; c++) {
+    headRow.append(el('th', 'wb-corner'));
+    if (before > 0) headRow.append(el('th', 'wb-spacer'));
+    for (let c = left; c <= right; c++) {
       const th = el('th', 'wb-colhead', columnLetters(c));
       th.dataset.column = String(c);
       th.scope = 'col';
       headRow.append(th);
-      this.columnHeads.push(th);
+      this.columnHeads.set(c, th);
     }
+    if (after > 0) headRow.append(el('th', 'wb-spacer'));
     thead.append(headRow);
 
+    const spanned = 1 + (before > 0 ? 1 : 0) + (right - left + 1) + (after > 0 ? 1 : 0);
+    const spacerRow = (rows: number) => {
+      const tr = el('tr', 'wb-spacer-row');
+      const td = el('td', 'wb-spacer');
+      td.colSpan = spanned;
+      td.style.height = `${rows * ROW_HEIGHT}px`;
+      tr.append(td);
+      tr.setAttribute('aria-hidden', 'true');
+      return tr;
+    };
     const tables = this.tablesOnSheet();
     const tbody = el('tbody');
-    this.rowHeads = [];
-    for (let r = 1; r <= this.drawnRows; r++) {
+    if (top > 1) tbody.append(spacerRow(top - 1));
+    for (let r = top; r <= bottom; r++) {
       const tr = el('tr');
       const rh = el('th', 'wb-rowhead', String(r));
       rh.dataset.row = String(r);
       rh.scope = 'row';
       tr.append(rh);
-      this.rowHeads.push(rh);
-      for (let c = 1; c <= this.drawnColumns; c++) {
+      this.rowHeads.set(r, rh);
+      if (before > 0) tr.append(el('td', 'wb-spacer'));
+      for (let c = left; c <= right; c++) {
         const td = el('td');
         td.dataset.row = String(r);
         td.dataset.column = String(c);
@@ -235,14 +350,33 @@ export class GridView {
         tr.append(td);
         this.cells.set(`${r}:${c}`, td);
       }
+      if (after > 0) tr.append(el('td', 'wb-spacer'));
       tbody.append(tr);
     }
+    if (bottom < this.extentRows) tbody.append(spacerRow(this.extentRows - bottom));
+    const keepTop = this.scroller.scrollTop;
+    const keepLeft = this.scroller.scrollLeft;
     this.table.replaceChildren(colgroup, thead, tbody);
-    this.note.textContent =
-      used.rows > MAX_DRAWN_ROWS ? `This sheet has ${used.rows.toLocaleString('en-US')} rows; the first ${MAX_DRAWN_ROWS.toLocaleString('en-US')} are drawn. Formulas and the panel use them all.` : '';
-    this.note.hidden = this.note.textContent === '';
-    this.renderTabs();
-    this.paintSelection();
+    this.scroller.scrollTop = keepTop;
+    this.scroller.scrollLeft = keepLeft;
+    if (!force) this.paintSelection();
+  }
+
+  /** Scrolls so that a cell is in view ('nearest': only as far as needed; 'center': in the middle), then draws. */
+  private scrollToCell(pos: CellPos, mode: 'nearest' | 'center'): void {
+    const headHeight = ROW_HEIGHT;
+    const viewHeight = Math.max(ROW_HEIGHT, (this.scroller.clientHeight || 900) - headHeight);
+    const viewWidth = Math.max(MIN_COLUMN_WIDTH, (this.scroller.clientWidth || 1000) - this.rowHeadWidth());
+    const y = (pos.row - 1) * ROW_HEIGHT;
+    const x = this.lefts[Math.min(pos.column, this.extentColumns)] ?? 0;
+    const w = this.widths[pos.column] ?? MIN_COLUMN_WIDTH;
+    if (mode === 'center') {
+      if (y < this.scroller.scrollTop || y + ROW_HEIGHT > this.scroller.scrollTop + viewHeight) this.scroller.scrollTop = Math.max(0, y - viewHeight / 2);
+    } else if (y < this.scroller.scrollTop) this.scroller.scrollTop = y;
+    else if (y + ROW_HEIGHT > this.scroller.scrollTop + viewHeight) this.scroller.scrollTop = y + ROW_HEIGHT - viewHeight;
+    if (x < this.scroller.scrollLeft) this.scroller.scrollLeft = x;
+    else if (x + w > this.scroller.scrollLeft + viewWidth) this.scroller.scrollLeft = x + w - viewWidth;
+    this.drawWindow(false);
   }
 
   /** A column wide enough for its longest text among the first rows (like a spreadsheet's autofit), within limits. */
@@ -290,21 +424,22 @@ export class GridView {
     const here = areas.filter((a) => a.sheet.toLowerCase() === this.sheetName.toLowerCase());
     if (here.length === 0) return;
     const used = this.model.usedExtent(this.sheetName);
-    const outgrown = used.rows + 1 > this.drawnRows && this.drawnRows < MAX_DRAWN_ROWS;
-    if (outgrown || used.columns + 1 > this.drawnColumns || this.currentTableSignature() !== this.tableSignature) {
-      const keepTop = this.scroller.scrollTop;
-      const keepLeft = this.scroller.scrollLeft;
-      this.render();
-      this.scroller.scrollTop = keepTop;
-      this.scroller.scrollLeft = keepLeft;
-      this.refreshFormulaBar();
+    const outgrown = used.rows + 1 > this.extentRows || used.columns + 1 > this.extentColumns;
+    if (outgrown || this.currentTableSignature() !== this.tableSignature) {
+      this.editing = null;
+      this.layout();
+      this.drawWindow(true);
+      this.paintSelection();
       return;
     }
+    const w = this.win;
     for (const a of here) {
-      const bottom = Math.min(a.bottom, this.drawnRows);
-      const right = Math.min(a.right, this.drawnColumns);
-      for (let r = a.top; r <= bottom; r++) {
-        for (let c = a.left; c <= right; c++) {
+      const top = Math.max(a.top, w.top);
+      const bottom = Math.min(a.bottom, w.bottom);
+      const left = Math.max(a.left, w.left);
+      const right = Math.min(a.right, w.right);
+      for (let r = top; r <= bottom; r++) {
+        for (let c = left; c <= right; c++) {
           const td = this.cells.get(`${r}:${c}`);
           if (td && !(this.editing && this.editing.pos.row === r && this.editing.pos.column === c)) this.fillCell(td, r, c);
         }
@@ -313,34 +448,33 @@ export class GridView {
     this.refreshFormulaBar();
   }
 
-  private ensureDrawn(pos: CellPos): void {
-    if (pos.row > this.drawnRows || pos.column > this.drawnColumns) this.render();
-  }
-
   // ---- selection -----------------------------------------------------------------------------------------
 
   private paintSelection(): void {
     for (const e of this.marked) e.classList.remove('sel', 'active', 'sel-head');
     this.marked = [];
     const a = this.selectionArea();
-    const bottom = Math.min(a.bottom, this.drawnRows);
-    const right = Math.min(a.right, this.drawnColumns);
-    for (let r = a.top; r <= bottom; r++) {
-      for (let c = a.left; c <= right; c++) {
+    const w = this.win;
+    const top = Math.max(a.top, w.top);
+    const bottom = Math.min(a.bottom, w.bottom);
+    const left = Math.max(a.left, w.left);
+    const right = Math.min(a.right, w.right);
+    for (let r = top; r <= bottom; r++) {
+      for (let c = left; c <= right; c++) {
         const td = this.cells.get(`${r}:${c}`);
         if (td) {
           td.classList.add('sel');
           this.marked.push(td);
         }
       }
-      const rh = this.rowHeads[r - 1];
+      const rh = this.rowHeads.get(r);
       if (rh) {
         rh.classList.add('sel-head');
         this.marked.push(rh);
       }
     }
-    for (let c = a.left; c <= right; c++) {
-      const ch = this.columnHeads[c - 1];
+    for (let c = left; c <= right; c++) {
+      const ch = this.columnHeads.get(c);
       if (ch) {
         ch.classList.add('sel-head');
         this.marked.push(ch);
@@ -356,18 +490,29 @@ export class GridView {
   }
 
   private refreshFormulaBar(): void {
+    this.refreshNote();
     if (document.activeElement === this.formulaBar) return;
     this.formulaBar.value = this.model.entryText(this.sheetName, this.anchor.row, this.anchor.column);
+  }
+
+  /** Under the grid, the active cell's error and what it means, in text a keyboard or screen-reader user reaches
+   *  (the cell's tooltip alone needs a mouse). */
+  private refreshNote(): void {
+    const v = this.model.value(this.sheetName, this.anchor.row, this.anchor.column);
+    const text = isErrorValue(v) ? `${cellName(this.anchor.row, this.anchor.column)}: ${v.error}${v.message ? ` ${v.message}` : ''}` : '';
+    if (this.note.textContent !== text) this.note.textContent = text;
+    this.note.hidden = text === '';
   }
 
   private flash(area: Area): void {
     for (const e of this.flashed) e.classList.remove('flash');
     this.flashed = [];
     if (this.flashTimer !== undefined) window.clearTimeout(this.flashTimer);
-    for (let r = area.top; r <= Math.min(area.bottom, this.drawnRows); r++) {
-      const rh = this.rowHeads[r - 1];
+    const w = this.win;
+    for (let r = Math.max(area.top, w.top); r <= Math.min(area.bottom, w.bottom); r++) {
+      const rh = this.rowHeads.get(r);
       if (rh) this.flashed.push(rh);
-      for (let c = area.left; c <= Math.min(area.right, this.drawnColumns); c++) {
+      for (let c = Math.max(area.left, w.left); c <= Math.min(area.right, w.right); c++) {
         const td = this.cells.get(`${r}:${c}`);
         if (td) this.flashed.push(td);
       }
@@ -392,11 +537,15 @@ export class GridView {
 
   private moveBy(dRow: number, dColumn: number, extend: boolean): void {
     const from = extend ? this.focus : this.anchor;
-    const next = { row: Math.max(1, from.row + dRow), column: Math.max(1, from.column + dColumn) };
-    this.ensureDrawn(next);
-    if (extend) this.setSelection(this.anchor, next);
-    else this.setSelection(next, next);
-    this.cells.get(`${next.row}:${next.column}`)?.scrollIntoView({ block: 'nearest', inline: 'nearest' });
+    const next = { row: Math.min(MAX_ROW, Math.max(1, from.row + dRow)), column: Math.min(MAX_COLUMN, Math.max(1, from.column + dColumn)) };
+    if (extend) this.focus = next;
+    else {
+      this.anchor = next;
+      this.focus = next;
+    }
+    this.ensureExtent();
+    this.scrollToCell(next, 'nearest');
+    this.setSelection(this.anchor, this.focus);
   }
 
   // ---- editing -------------------------------------------------------------------------------------------
@@ -457,10 +606,7 @@ export class GridView {
   }
 
   private clearSelection(): void {
-    const a = this.selectionArea();
-    const rows: null[][] = [];
-    for (let r = a.top; r <= a.bottom; r++) rows.push(new Array<null>(a.right - a.left + 1).fill(null));
-    void this.editor.write(this.sheetName, a.top, a.left, rows);
+    void this.editor.clear(this.selectionArea());
   }
 
   // ---- events --------------------------------------------------------------------------------------------
@@ -574,8 +720,8 @@ export class GridView {
     });
   }
 
-  /** True when the area is (partly) on the active sheet: for callers deciding whether to redraw. */
+  /** True when the area is (partly) drawn on the active sheet: for callers deciding whether to redraw. */
   shows(area: Area): boolean {
-    return intersects(area, { sheet: this.sheetName, top: 1, left: 1, bottom: this.drawnRows, right: this.drawnColumns });
+    return intersects(area, { sheet: this.sheetName, top: this.win.top, left: this.win.left, bottom: this.win.bottom, right: this.win.right });
   }
 }
