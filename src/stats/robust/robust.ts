@@ -18,15 +18,18 @@ import { gatherWeights, SortedColumn, sortedColumn, weightedAverageRanks, weight
  */
 export const MAX_REPLICATES = 2000;
 export const MIN_REPLICATES = 200;
-/** Row visits one bootstrap may spend before B drops below MAX_REPLICATES: 2,000 resamples of 15,000 rows. */
-const ROW_BUDGET = 3e7;
+/** Row visits one bootstrap may spend before B drops below MAX_REPLICATES: 2,000 resamples of 5,000 rows. A row
+ *  visit of a resample costs about 100 ns here, so this keeps a bootstrap near 1 s of a cell's time budget (at
+ *  3e7, robust intervals took 1.1–1.5 s from 15,000 to 100,000 rows). */
+const ROW_BUDGET = 1e7;
 /** Exact jackknife (one row left out at a time) up to this many rows; interleaved groups above. */
 export const JACKKNIFE_EXACT_MAX = 2000;
 const JACKKNIFE_GROUPS = 100;
 /** Kendall's tau costs O(n log n) per resample: above this many rows its interval comes from subsamples. */
 export const KENDALL_BOOTSTRAP_MAX = 20000;
-/** Above this many rows every bootstrap interval is replaced by one from disjoint subsamples (subsample.ts). */
-export const SUBSAMPLE_ABOVE = 100000;
+/** Above this many rows every bootstrap interval is replaced by one from disjoint subsamples (subsample.ts): at
+ *  50,000 rows the fewest resamples (200) already cost the whole row budget. */
+export const SUBSAMPLE_ABOVE = 50000;
 
 /** True when an interval over n rows of `method` comes from subsamples rather than a bootstrap. */
 export function usesSubsamples(n: number, method: Method): boolean {
@@ -84,6 +87,39 @@ const ROBUST_FNS: Record<'percentage_bend' | 'winsorized' | 'biweight', RobustSt
   winsorized,
   biweight,
 };
+
+/**
+ * The skipped correlation with its set-aside rows found once, on all the rows, and held fixed: Pearson on the
+ * kept rows as a function of resample weights (and, for subsamples, of a list of rows). This is what a bootstrap
+ * of long columns uses where re-finding the outliers in every resample would cost more than the time budget
+ * (skippedRedetects); the comparisons say so in their method text.
+ */
+export function skippedHeldFixed(prep: PreparedPairs): { weighted: WeightedStatistic; onRows: (rows: Uint32Array) => number } {
+  const found = skippedOn(prep.x, prep.y);
+  if (!found.skipped) throw new StatsInputError('constant', 'a column is constant: a correlation needs variation in both columns');
+  const keep = found.skipped;
+  const wk = new Int32Array(prep.n);
+  return {
+    weighted: (w) => {
+      for (let i = 0; i < wk.length; i++) wk[i] = keep[i] ? 0 : w[i];
+      return weightedPearson(prep.x, prep.y, wk);
+    },
+    onRows: (rows) => {
+      let m = 0;
+      for (let k = 0; k < rows.length; k++) if (!keep[rows[k]]) m++;
+      const x = new Float64Array(m);
+      const y = new Float64Array(m);
+      let j = 0;
+      for (let k = 0; k < rows.length; k++) {
+        const i = rows[k];
+        if (keep[i]) continue;
+        x[j] = prep.x[i];
+        y[j++] = prep.y[i];
+      }
+      return weightedPearson(x, y, new Int32Array(m).fill(1));
+    },
+  };
+}
 
 /** Pearson or Spearman of the rows the skipped rule keeps; NaN when a column is constant. */
 function skippedOn(x: Float64Array, y: Float64Array): { r: number; kept: number; skipped: Uint8Array | null } {
