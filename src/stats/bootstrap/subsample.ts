@@ -8,7 +8,7 @@ import { Xoshiro128 } from './rng';
  * standard error at n: Politis & Romano (1994), "Large sample confidence regions based on subsamples under
  * minimal assumptions", Annals of Statistics 22:2031-2050; Carlstein (1986), Annals of Statistics 14:1171-1179.
  * The work is G statistics on m rows, so one pass's worth in all, where a bootstrap needs hundreds of passes;
- * at the sizes it is used for (over 100,000 rows) the sampling distribution of every coefficient here is close
+ * at the sizes it is used for (over 50,000 rows) the sampling distribution of every coefficient here is close
  * to normal on Fisher's z scale, which is what the interval assumes.
  */
 export const SUBSAMPLE_GROUPS = 200;
