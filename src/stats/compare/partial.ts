@@ -82,7 +82,11 @@ export function partialCorrelation(
 
 function scaled(v: ArrayLike<number>): Float64Array {
   const s = powerOfTwoScale(v);
-  return Float64Array.from(v, (a) => a / s);
+  // A plain loop: Float64Array.from with a mapping function calls it through the generic iterator path, several
+  // times slower at a million rows.
+  const out = new Float64Array(v.length);
+  for (let i = 0; i < v.length; i++) out[i] = v[i] / s;
+  return out;
 }
 
 /** Residuals of v on the controls, refusing a column that is constant or that the controls explain fully. */

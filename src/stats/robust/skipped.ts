@@ -1,4 +1,3 @@
-import { argsort } from '../internal/sort';
 import { selectKth, selectKthAndNext, selectKthAndPrevious } from '../internal/select';
 
 /**
@@ -68,6 +67,56 @@ function centreAndScale(v: Float64Array, work: Float64Array): { centre: number; 
   return { centre, scale: mad > 0 ? mad / MADN : MEAN_ABS_TO_SD * mean };
 }
 
+function identity(n: number): Uint32Array {
+  const out = new Uint32Array(n);
+  for (let i = 0; i < n; i++) out[i] = i;
+  return out;
+}
+
+/**
+ * The `m` rows with the largest `norm2`, farthest first and equal distances in row order (what a stable sort of
+ * the whole column would put first), found by one selection instead of sorting a million rows. Uses `work`.
+ */
+function farthest(norm2: Float64Array, m: number, work: Float64Array): Uint32Array {
+  const n = norm2.length;
+  work.set(norm2);
+  const t = selectKth(work, n - m);
+  const picked: number[] = [];
+  for (let i = 0; i < n; i++) if (norm2[i] > t) picked.push(i);
+  for (let i = 0; i < n && picked.length < m; i++) if (norm2[i] === t) picked.push(i);
+  picked.sort((a, b) => norm2[b] - norm2[a] || a - b);
+  return Uint32Array.from(picked);
+}
+
+/**
+ * The median and the ideal fourths of `a` (which it reorders), the same numbers as medianInPlace and
+ * idealFourths: once the median is selected, the lower fourth lies in the lower half and the upper in the upper
+ * half, so each is selected within its half only (half the work of selecting it in the whole array).
+ */
+function medianAndFourths(a: Float64Array): [number, number, number] {
+  const n = a.length;
+  if (n < 16) {
+    const md = medianInPlace(a);
+    const [q1, q2] = idealFourths(a);
+    return [md, q1, q2];
+  }
+  const k = (n - 1) >> 1;
+  let md: number;
+  if (n % 2 === 1) md = selectKth(a, k);
+  else {
+    const [lo, hi] = selectKthAndNext(a, k);
+    md = (lo + hi) / 2;
+  }
+  const f = n / 4 + 5 / 12;
+  const j = Math.floor(f);
+  const h = f - j;
+  // a[0..k] are the k + 1 smallest values, a[k+1..n-1] the rest; order statistic j (1-based) and its successor
+  // lie in the first stretch, n - j + 1 and its predecessor in the second (j <= k and n - j - 1 > k for n >= 16).
+  const [lj, lj1] = selectKthAndNext(a, j - 1, 0, k);
+  const [uk, uk1] = selectKthAndPrevious(a, n - j, k + 1, n - 1);
+  return [md, (1 - h) * lj + h * lj1, (1 - h) * uk + h * uk1];
+}
+
 export interface SkippedRows {
   /** 1 for a skipped row, 0 for a kept one. */
   skipped: Uint8Array;
@@ -94,32 +143,48 @@ export function findSkippedRows(x: Float64Array, y: Float64Array): SkippedRows |
     v[i] = (y[i] - sy.centre) / sy.scale;
     norm2[i] = u[i] * u[i] + v[i] * v[i];
   }
-  let dirs: ArrayLike<number>;
-  if (n <= DIRECTIONS_ALL) {
-    dirs = Uint32Array.from({ length: n }, (_, i) => i);
-  } else {
-    // Farthest first; the sort is stable, so equal distances keep row order.
-    const neg = new Float64Array(n);
-    for (let i = 0; i < n; i++) neg[i] = -norm2[i];
-    dirs = argsort(neg).slice(0, DIRECTIONS);
-  }
+  const dirs = n <= DIRECTIONS_ALL ? identity(n) : farthest(norm2, DIRECTIONS, work);
   const skipped = new Uint8Array(n);
   const stride = n > THRESHOLD_SAMPLE ? Math.ceil(n / THRESHOLD_SAMPLE) : 1;
   const m = Math.ceil(n / stride);
   const sample = new Float64Array(m);
+  // Each direction's limit first; then only rows far enough from the centre to pass the lowest limit are
+  // projected on every direction. A row's projected distance is at most its distance from the centre
+  // (Cauchy-Schwarz), so no other row can be flagged; the margin covers rounding, and each candidate is tested
+  // with the same expression as before, so the set of flagged rows is exactly that of testing every row.
+  const du = new Float64Array(dirs.length);
+  const dv = new Float64Array(dirs.length);
+  const dl = new Float64Array(dirs.length);
+  const dlimit = new Float64Array(dirs.length);
   let used = 0;
+  let lowest = Infinity;
   for (let k = 0; k < dirs.length; k++) {
     const i = dirs[k];
     if (!(norm2[i] > 0)) continue;
-    used++;
     const len = Math.sqrt(norm2[i]);
     const ui = u[i];
     const vi = v[i];
     for (let j = 0, t = 0; j < n; j += stride, t++) sample[t] = Math.abs(u[j] * ui + v[j] * vi) / len;
-    const md = medianInPlace(sample);
-    const [q1, q2] = idealFourths(sample);
+    const [md, q1, q2] = medianAndFourths(sample);
     const limit = md + CUT * (q2 - q1);
-    for (let j = 0; j < n; j++) if (Math.abs(u[j] * ui + v[j] * vi) / len > limit) skipped[j] = 1;
+    du[used] = ui;
+    dv[used] = vi;
+    dl[used] = len;
+    dlimit[used] = limit;
+    used++;
+    if (limit < lowest) lowest = limit;
+  }
+  const reach = lowest * lowest * (1 - 1e-9);
+  for (let j = 0; j < n; j++) {
+    if (!(norm2[j] > reach)) continue;
+    const uj = u[j];
+    const vj = v[j];
+    for (let k = 0; k < used; k++) {
+      if (Math.abs(uj * du[k] + vj * dv[k]) / dl[k] > dlimit[k]) {
+        skipped[j] = 1;
+        break;
+      }
+    }
   }
   let count = 0;
   for (let j = 0; j < n; j++) count += skipped[j];

@@ -33,3 +33,28 @@ test.each([100, 5000, 70000])('decimal columns (one-word keys) sort as the defin
   const ref = Array.from({ length: n }, (_, i) => i).sort((a, b) => v[a] - v[b]);
   expect(Array.from(argsort(v))).toEqual(ref);
 });
+
+/** Full-precision columns whose values agree in their high 32 bits in runs (short runs, a few long runs, long runs
+ *  everywhere), so the order rests on the low word's passes, with and without a given initial order. */
+test.each([
+  ['short runs of nearly equal values', 'short'],
+  ['a few long runs under a sixteenth of the rows', 'few-long'],
+  ['long runs everywhere (clustered within a millionth)', 'clustered'],
+] as const)('stable ascending order on %s', (_label, kind) => {
+  const n = 50000;
+  const u = lcg(kind.length);
+  const v = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const base = kind === 'clustered' ? 1e6 + Math.floor(u() * 20) : (u() - 0.3) * 100;
+    // Offsets below the high word's resolution (2^-20 relative), repeated values among them.
+    const near = u() < 0.3 ? base * (1 + Math.floor(u() * 5) * 2 ** -40) : base;
+    v[i] = kind === 'few-long' && i % 40 === 0 ? 7 + Math.floor(u() * 1000) * 2 ** -45 : near;
+  }
+  const order = argsort(v);
+  const ref = Array.from({ length: n }, (_, i) => i).sort((a, b) => v[a] - v[b]);
+  expect(Array.from(order)).toEqual(ref);
+  // Stable with respect to a given initial order as well.
+  const initial = Uint32Array.from({ length: n }, (_, i) => n - 1 - i);
+  const refInitial = Array.from(initial).sort((a, b) => v[a] - v[b]);
+  expect(Array.from(argsort(v, initial))).toEqual(refInitial);
+});

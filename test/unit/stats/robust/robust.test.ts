@@ -80,3 +80,75 @@ test('a robust coefficient has no Fisher interval and says so; too few rows are 
   expect(() => correlate(c.x, c.y, { method: 'biweight', tail: 'both', level: 0.95, interval: 'fisher' })).toThrow(/no Fisher-z interval/);
   expect(() => correlate([1, 2, 3, 4], [2, 1, 4, 3], { method: 'winsorized', tail: 'both', level: 0.95 })).toThrow(/at least 5/);
 });
+
+/**
+ * The rule restated directly, as its JSDoc words it: directions from a full stable sort of the distances, every
+ * row projected on every direction. findSkippedRows reaches the same rows by selection and by testing only the
+ * rows that are far enough from the centre to pass any direction's limit; this holds the two to the same set.
+ */
+function skippedByDefinition(x: Float64Array, y: Float64Array): number[] {
+  const n = x.length;
+  const med = (a: Float64Array) => {
+    const s = Float64Array.from(a).sort();
+    return n % 2 ? s[(n - 1) / 2] : (s[n / 2 - 1] + s[n / 2]) / 2;
+  };
+  const scale = (a: Float64Array, c: number) => {
+    const d = a.map((v) => Math.abs(v - c));
+    const mad = med(d);
+    return mad > 0 ? mad / 0.6744897501960817 : 1.2533141373155003 * (d.reduce((s, v) => s + v, 0) / n);
+  };
+  const cx = med(x);
+  const cy = med(y);
+  const sx = scale(x, cx);
+  const sy = scale(y, cy);
+  const u = x.map((v) => (v - cx) / sx);
+  const v = y.map((w) => (w - cy) / sy);
+  const norm2 = u.map((a, i) => a * a + v[i] * v[i]);
+  const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => norm2[b] - norm2[a] || a - b);
+  const dirs = n <= 100 ? Array.from({ length: n }, (_, i) => i) : order.slice(0, 100);
+  const stride = n > 50000 ? Math.ceil(n / 50000) : 1;
+  const cut = Math.sqrt(-2 * Math.log(0.025));
+  const flagged = new Set<number>();
+  for (const i of dirs) {
+    if (!(norm2[i] > 0)) continue;
+    const len = Math.sqrt(norm2[i]);
+    const proj = (j: number) => Math.abs(u[j] * u[i] + v[j] * v[i]) / len;
+    const sample: number[] = [];
+    for (let j = 0; j < n; j += stride) sample.push(proj(j));
+    sample.sort((a, b) => a - b);
+    const m = sample.length;
+    const md = m % 2 ? sample[(m - 1) / 2] : (sample[m / 2 - 1] + sample[m / 2]) / 2;
+    const f = m / 4 + 5 / 12;
+    const k = Math.floor(f);
+    const h = f - k;
+    const q1 = (1 - h) * sample[k - 1] + h * sample[k];
+    const q2 = (1 - h) * sample[m - k] + h * sample[m - k - 1];
+    const limit = md + cut * (q2 - q1);
+    for (let j = 0; j < n; j++) if (proj(j) > limit) flagged.add(j);
+  }
+  return [...flagged].sort((a, b) => a - b);
+}
+
+test.each([
+  ['1,000 rows, five planted outliers', 1000, 'outliers'],
+  ['3,000 rows on a coarse grid (many equal distances)', 3000, 'ties'],
+  ['120,000 rows (directions read from every 3rd row)', 120000, 'outliers'],
+] as const)('the skipped rule on %s sets aside exactly the rows its definition does', (_label, n, kind) => {
+  let s = 7;
+  const rnd = () => ((s = (s * 1103515245 + 12345) % 2147483648) / 2147483648);
+  const x = new Float64Array(n);
+  const y = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const a = rnd() + rnd() + rnd();
+    x[i] = kind === 'ties' ? Math.round(a * 4) : a;
+    y[i] = kind === 'ties' ? Math.round((a + rnd()) * 4) : a + rnd() * 0.8;
+  }
+  if (kind === 'outliers') for (const i of [3, 10, 400, 777, n - 1]) y[i] += 9;
+  const found = findSkippedRows(x, y)!;
+  const rows: number[] = [];
+  found.skipped.forEach((f, i) => { if (f) rows.push(i); });
+  const expected = skippedByDefinition(x, y);
+  expect(rows).toEqual(expected);
+  expect(found.count).toBe(expected.length);
+  if (kind === 'outliers') expect(rows).toEqual(expect.arrayContaining([3, 10, 400, 777, n - 1]));
+});
