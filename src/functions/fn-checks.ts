@@ -7,6 +7,7 @@
  * prepared pairs from what it reads through the Excel API and comes to the same core entry point
  * (src/stats/checks/checked.ts), but does not share this cache.
  */
+import { assertWithinBudget } from '../stats/budget/call-budget';
 import { coefficientSymbol, listWords } from '../stats/verdict/advice';
 import { conclude } from '../stats/verdict/conclusion';
 import { formatCorrelation, formatNumber, formatP } from '../stats/format';
@@ -33,9 +34,10 @@ interface Checked {
 }
 
 /** Reads the pairs and returns the (shared, memoised) check report for this data, alpha and sheet position. */
-export function checkedPairs(x: CellRange, y: CellRange, alpha: number, xAddress?: string | null): Checked {
+export function checkedPairs(x: CellRange, y: CellRange, alpha: number, xAddress?: string | null, beforeChecks?: (rows: number) => void): Checked {
   const { pairs, prepared } = sharedPairs(x, y);
   requirePairs(pairs, 3);
+  beforeChecks?.(prepared.n);
   const naming = pointNaming(x, xAddress);
   const index = pairs.index;
   const report = checksOf(prepared, alpha, { key: naming.key, name: (i) => naming.name(index ? index[i] : i) });
@@ -130,7 +132,7 @@ export function SENSITIVITY(x: any[][], y: any[][], level?: number, method?: str
     const lvl = optLevel(level);
     const m = optMethod(method);
     const address = invocation?.parameterAddresses?.[0];
-    const { pairs, prepared, report } = checkedPairs(x, y, 1 - lvl, address);
+    const { pairs, prepared, report } = checkedPairs(x, y, 1 - lvl, address, (n) => assertWithinBudget('sensitivity', m, n, n));
     const c = conclude(prepared, report, { method: m, level: lvl, name: pairNames(x, pairs, address) });
     const table: (string | number)[][] = [['Alternative', 'Coefficient', 'Lower', 'Upper', 'p-value', 'Rows', 'Conclusion', 'Holds']];
     for (const r of c.sensitivity.rows) {
@@ -163,7 +165,7 @@ export function REPORT(x: any[][], y: any[][], level?: number, method?: string, 
     const m = optMethod(method);
     const iv = optInterval(interval);
     const address = invocation?.parameterAddresses?.[0];
-    const { pairs, prepared, report } = checkedPairs(x, y, REPORT_CHECK_ALPHA, address);
+    const { pairs, prepared, report } = checkedPairs(x, y, REPORT_CHECK_ALPHA, address, (n) => assertWithinBudget('report', m, n, n));
     const names = pairNames(x, pairs, address);
     const c = conclude(prepared, report, { method: m, level: lvl, name: names, interval: iv });
     const result = c.correlation;

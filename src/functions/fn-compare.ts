@@ -10,6 +10,7 @@ import { assertMatrixFits, correlationMatrix, MATRIX_LIMITS, MATRIX_SHOWS, Matri
 import { partialCorrelation } from '../stats/compare/partial';
 import { CellRange, filledRowCount, rangeShape, readHeaderRow } from '../sheet/cells';
 import { Method, StatsInputError } from '../stats/types';
+import { assertWithinBudget } from '../stats/budget/call-budget';
 import { optClassicalMethod, optFlag, optLevel, optMethod, optTail, optionWord, requiredNumber } from './args';
 import { guard } from './errors';
 import { readAlignedVectors, readBlock, readPairs, readWithControls } from './read';
@@ -42,6 +43,7 @@ export function DIFF_GROUPS(x1: any[][], y1: any[][], x2: any[][], y2: any[][], 
     const g2 = readPairs(x2, y2, 'x2', 'y2');
     requireRows(g1.x.length, 'the first group');
     requireRows(g2.x.length, 'the second group');
+    assertWithinBudget('comparison', opts.method, g1.x.length + g2.x.length, g1.x.length + g2.x.length);
     return comparisonRow(compareIndependentSamples(g1.x, g1.y, g2.x, g2.y, opts));
   });
 }
@@ -62,6 +64,7 @@ export function DIFF_SHARED(common: any[][], a: any[][], b: any[][], level?: num
     const opts = options(level, tail, method);
     const [c, u, v] = readAlignedVectors([common, a, b], ['common', 'a', 'b']);
     requireRows(c.length, 'the data');
+    assertWithinBudget('comparison', opts.method, 2 * c.length, c.length);
     return comparisonRow(compareSharedSamples(c, u, v, opts));
   });
 }
@@ -83,6 +86,7 @@ export function DIFF_SEPARATE(a: any[][], b: any[][], c: any[][], d: any[][], le
     const opts = options(level, tail, method);
     const [p, q, s, t] = readAlignedVectors([a, b, c, d], ['a', 'b', 'c', 'd']);
     requireRows(p.length, 'the data');
+    assertWithinBudget('comparison', opts.method, 2 * p.length, p.length);
     return comparisonRow(compareSeparateSamples(p, q, s, t, opts));
   });
 }

@@ -77,19 +77,38 @@ function pairMicroseconds(kind: CostKind, rows: number): number {
   return rows < 64 ? 25 + 0.5 * rows : 40 + 0.25 * rows;
 }
 
-/** Predicted milliseconds for the given numbers of linear and sorted pairs over `rows` rows. */
-export function predictedMatrixMs(linearPairs: number, sortedPairs: number, rows: number): number {
-  return (linearPairs * pairMicroseconds('linear', rows) + sortedPairs * pairMicroseconds('sorted', rows)) / 1e3;
+/**
+ * Per column and row: reading a cell the host passed as a fresh one-cell array (with the collections its
+ * garbage costs), and ranking a gapless column once for Spearman. Measured on a cold call over fresh host arrays
+ * at 1,000,000 rows on the two-core bench machine (4 columns: Pearson 0.63-0.89 s, Spearman 1.0-1.1 s; see
+ * docs/performance.md).
+ */
+const READ_US_PER_CELL = 0.15;
+const RANK_US_PER_CELL = 0.1;
+
+/**
+ * Predicted milliseconds for the given numbers of linear and sorted pairs over `rows` rows of `columns` columns,
+ * `rankedColumns` of which are ranked once up front.
+ */
+export function predictedMatrixMs(linearPairs: number, sortedPairs: number, rows: number, columns: number, rankedColumns = 0): number {
+  const cells = columns * rows * READ_US_PER_CELL + rankedColumns * rows * RANK_US_PER_CELL;
+  return (linearPairs * pairMicroseconds('linear', rows) + sortedPairs * pairMicroseconds('sorted', rows) + cells) / 1e3;
+}
+
+/** Predicted milliseconds of a whole matrix of one cost kind. */
+function matrixMs(columns: number, rows: number, method: Method, kind: CostKind): number {
+  const pairs = (columns * (columns - 1)) / 2;
+  const ranked = method === 'spearman' ? columns : 0;
+  return (pairs * pairMicroseconds(kind, rows) + columns * rows * READ_US_PER_CELL + ranked * rows * RANK_US_PER_CELL) / 1e3;
 }
 
 function tooLarge(columns: number, rows: number, method: Method, kind: CostKind): StatsInputError {
-  const pairs = (columns * (columns - 1)) / 2;
   // Largest row count within budget for this many columns (cost rises with rows: bisection).
   let lo = 0;
   let hi = rows;
   while (hi - lo > 1) {
     const mid = Math.floor((lo + hi) / 2);
-    if ((pairs * pairMicroseconds(kind, mid)) / 1e3 <= MATRIX_LIMITS.budgetMs) lo = mid;
+    if (matrixMs(columns, mid, method, kind) <= MATRIX_LIMITS.budgetMs) lo = mid;
     else hi = mid;
   }
   const name = METHOD_LABELS[method].name;
@@ -113,10 +132,8 @@ export function assertMatrixFits(columns: number, rows: number, method: Method):
       `${columns.toLocaleString('en-US')} columns is too many for one matrix: at most ${MATRIX_LIMITS.maxColumns} (select fewer columns)`,
     );
   }
-  const pairs = (columns * (columns - 1)) / 2;
   const kind = costKind(method);
-  const ms = (pairs * pairMicroseconds(kind, rows)) / 1e3;
-  if (ms > MATRIX_LIMITS.budgetMs) throw tooLarge(columns, rows, method, kind);
+  if (matrixMs(columns, rows, method, kind) > MATRIX_LIMITS.budgetMs) throw tooLarge(columns, rows, method, kind);
 }
 
 function costKind(method: Method): CostKind {
@@ -190,7 +207,7 @@ export function correlationMatrix(columns: ArrayLike<number>[], method: Method, 
   // Now that the gaps are known: Spearman pairs with a gap are ranked per pair and cost like Kendall.
   if (method === 'spearman') {
     const linearPairs = (gapless * (gapless - 1)) / 2;
-    if (predictedMatrixMs(linearPairs, tests - linearPairs, rows) > MATRIX_LIMITS.budgetMs) {
+    if (predictedMatrixMs(linearPairs, tests - linearPairs, rows, k, gapless) > MATRIX_LIMITS.budgetMs) {
       throw tooLarge(k, rows, method, 'sorted');
     }
   }

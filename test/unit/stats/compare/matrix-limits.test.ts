@@ -84,11 +84,11 @@ describe('matrix size limit', () => {
     for (const [k, method] of [[200, 'pearson'], [40, 'pearson'], [60, 'kendall'], [15, 'kendall']] as const) {
       const n = rowsAtLimit(k, method);
       const pairs = (k * (k - 1)) / 2;
-      const at = (rows: number) => (method === 'pearson' ? predictedMatrixMs(pairs, 0, rows) : predictedMatrixMs(0, pairs, rows));
+      const at = (rows: number) => (method === 'pearson' ? predictedMatrixMs(pairs, 0, rows, k) : predictedMatrixMs(0, pairs, rows, k));
       expect(at(n)).toBeLessThanOrEqual(MATRIX_LIMITS.budgetMs);
       expect(at(n + 1)).toBeGreaterThan(MATRIX_LIMITS.budgetMs);
     }
-    expect(predictedMatrixMs(0, 100, 1000)).toBeGreaterThan(predictedMatrixMs(100, 0, 1000));
+    expect(predictedMatrixMs(0, 100, 1000, 15)).toBeGreaterThan(predictedMatrixMs(100, 0, 1000, 15));
   });
 
   test('a Spearman request with gaps is re-checked once the gaps are known', () => {
