@@ -124,7 +124,7 @@ function pairNames(x: CellRange, pairs: PairedColumns, xAddress?: string | null)
  * @param [level] Confidence level of the intervals, between 0 and 1; default 0.95 (95%).
  * @param [method] The coefficient the conclusion is about: "pearson" (default, straight line), "spearman" (rank order), "kendall" (rank agreement); resisting outliers: "percentage_bend", "winsorized", "biweight" or "skipped" (sets outlying rows aside); for rating-scale items: "polychoric" (both columns) or "polyserial" (one column).
  * @param invocation Supplied by Excel: where x is, so that rows are named by their sheet row.
- * @returns A table: a header row, one row per alternative (what was done, coefficient, lower, upper, p-value, rows, conclusion, whether it holds), and a last row with the summary.
+ * @returns A table: a header row, one row per alternative (what was done, coefficient, lower, upper, p-value, rows, conclusion, whether it holds), and a last row with the summary. A cell takes up to 560,000 rows (the panel any number).
  * @requiresParameterAddresses
  */
 export function SENSITIVITY(x: any[][], y: any[][], level?: number, method?: string, invocation?: CustomFunctions.Invocation): any[][] {
@@ -156,7 +156,7 @@ export function SENSITIVITY(x: any[][], y: any[][], level?: number, method?: str
  * @param [method] "pearson" (default, straight line), "spearman" (rank order), "kendall" (rank agreement); resisting outliers: "percentage_bend", "winsorized", "biweight" or "skipped" (sets outlying rows aside); for rating-scale items: "polychoric" (both columns) or "polyserial" (one column).
  * @param [interval] How the interval is made: "fisher" (default for Pearson, Spearman and Kendall), "bca" (bias-corrected and accelerated bootstrap) or "percentile" (percentile bootstrap, the default for the outlier-resisting coefficients).
  * @param invocation Supplied by Excel: where x is, so that points are named by their sheet row.
- * @returns A two-column table: what is reported, and its value.
+ * @returns A two-column table: what is reported, and its value. A cell takes up to 600,000 rows (the panel any number).
  * @requiresParameterAddresses
  */
 export function REPORT(x: any[][], y: any[][], level?: number, method?: string, interval?: string, invocation?: CustomFunctions.Invocation): any[][] {

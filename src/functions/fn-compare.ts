@@ -33,7 +33,7 @@ function options(level: unknown, tail: unknown, method: unknown = null): { level
  * @param y2 Second column (or row) of the second group, the same size as x2.
  * @param [level] Confidence level between 0 and 1, default 0.95 (95%).
  * @param [tail] "both" (default: any difference), "positive" (only a stronger correlation in the first group counts) or "negative" (only a weaker one).
- * @param [method] The coefficient compared: "pearson" (default), "spearman" or "kendall", or one that resists outliers, "percentage_bend", "winsorized", "biweight" or "skipped" (compared by a bootstrap of the rows, seeded from the data so the same cells give the same answer).
+ * @param [method] The coefficient compared: "pearson" (default), "spearman" or "kendall", or one that resists outliers, "percentage_bend", "winsorized", "biweight" or "skipped" (compared by a bootstrap of the rows, seeded from the data so the same cells give the same answer); a cell takes up to 700,000 rows in the two groups by these, any number by "pearson").
  * @returns {any[][]} One row of four cells: the first group's correlation minus the second's, the lower and upper ends of its confidence interval, and the p-value.
  */
 export function DIFF_GROUPS(x1: any[][], y1: any[][], x2: any[][], y2: any[][], level?: number, tail?: string, method?: string): any[][] {
@@ -56,7 +56,7 @@ export function DIFF_GROUPS(x1: any[][], y1: any[][], x2: any[][], y2: any[][], 
  * @param b The second column to correlate with common, the same size as common.
  * @param [level] Confidence level between 0 and 1, default 0.95 (95%).
  * @param [tail] "both" (default: any difference), "positive" (only a stronger link of common with a counts) or "negative" (only a stronger link with b).
- * @param [method] The coefficient compared: "pearson" (default), "spearman" or "kendall", or one that resists outliers, "percentage_bend", "winsorized", "biweight" or "skipped" (compared by a bootstrap of the rows, seeded from the data so the same cells give the same answer).
+ * @param [method] The coefficient compared: "pearson" (default), "spearman" or "kendall", or one that resists outliers, "percentage_bend", "winsorized", "biweight" or "skipped" (compared by a bootstrap of the rows, seeded from the data so the same cells give the same answer); a cell takes up to 350,000 rows by these, any number by "pearson").
  * @returns {any[][]} One row of four cells: correlation(common, a) minus correlation(common, b), the lower and upper ends of its confidence interval, and the p-value. Rows missing a number in any of the three columns are skipped.
  */
 export function DIFF_SHARED(common: any[][], a: any[][], b: any[][], level?: number, tail?: string, method?: string): any[][] {
@@ -78,7 +78,7 @@ export function DIFF_SHARED(common: any[][], a: any[][], b: any[][], level?: num
  * @param d Second column of the second pair, the same size as a.
  * @param [level] Confidence level between 0 and 1, default 0.95 (95%).
  * @param [tail] "both" (default: any difference), "positive" (only a stronger a-b link counts) or "negative" (only a stronger c-d link).
- * @param [method] The coefficient compared: "pearson" (default), "spearman" or "kendall", or one that resists outliers, "percentage_bend", "winsorized", "biweight" or "skipped" (compared by a bootstrap of the rows, seeded from the data so the same cells give the same answer).
+ * @param [method] The coefficient compared: "pearson" (default), "spearman" or "kendall", or one that resists outliers, "percentage_bend", "winsorized", "biweight" or "skipped" (compared by a bootstrap of the rows, seeded from the data so the same cells give the same answer); a cell takes up to 350,000 rows by these, any number by "pearson").
  * @returns {any[][]} One row of four cells: correlation(a, b) minus correlation(c, d), the lower and upper ends of its confidence interval, and the p-value. Rows missing a number in any of the four columns are skipped.
  */
 export function DIFF_SEPARATE(a: any[][], b: any[][], c: any[][], d: any[][], level?: number, tail?: string, method?: string): any[][] {
