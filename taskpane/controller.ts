@@ -6,6 +6,7 @@
  */
 import { CellBlock, formatBlock } from '../src/sheet/a1';
 import { formatCount } from '../src/stats/format';
+import { functionCallNote } from './host-limits';
 import type { Method } from '../src/stats/types';
 import { twoColumnsOf } from './address';
 import { computeComparison } from './compare-view';
@@ -66,9 +67,13 @@ export class PanelController {
   private readonly secondPicker: PairPicker;
   private readonly status: HTMLElement;
   private readonly progress: HTMLElement;
+  /** What the host lets a cell function receive, when the picked columns pass it (host-limits.ts). */
+  private readonly hostNote: HTMLElement;
   private mainReads: Reads | null = null;
   private unwatch: (() => void) | null = null;
   private generation = 0;
+  /** Cancels the reads of the refresh in progress when a newer one starts. */
+  private readAbort = new AbortController();
 
   constructor(private readonly root: HTMLElement, private readonly wb: Workbook, private readonly opts: PanelOptions) {
     this.state = {
@@ -97,12 +102,14 @@ export class PanelController {
       el('div', { class: 'cv-progress-bar' }),
       el('div', { class: 'cv-progress-text' }),
     ]);
+    this.hostNote = el('p', { class: 'cv-host-note cv-hidden', testid: PANEL_TEST_IDS.hostNote, attrs: { role: 'note' } });
     const panel = el('div', { class: 'cv-panel' }, [
       el('header', { class: 'cv-header' }, [
         el('div', { class: 'cv-brand' }, [el('span', { class: 'cv-brand-mark', attrs: { 'aria-hidden': 'true' } }), el('span', { class: 'cv-brand-name', text: 'Covary' })]),
         this.status,
       ]),
       this.progress,
+      this.hostNote,
     ]);
     root.appendChild(panel);
 
@@ -153,6 +160,7 @@ export class PanelController {
 
   destroy(): void {
     this.destroyed = true;
+    this.readAbort.abort();
     this.warmUp.stop();
     this.scheduler.stop();
     if (this.unwatch) this.unwatch();
@@ -224,8 +232,25 @@ export class PanelController {
 
   // ---- refresh ------------------------------------------------------------------------------------------------
 
-  private async readPair(c: PairChoice): Promise<Reads> {
-    const [x, y] = await Promise.all([readNumericColumn(this.wb, c.x), readNumericColumn(this.wb, c.y)]);
+  /**
+   * Reads both columns of a pair. A read that the host makes in several requests (a long column on Excel on the
+   * web) shows its progress, and is cancelled as soon as a newer refresh starts: its cells are stale.
+   */
+  private async readPair(c: PairChoice, label: string): Promise<Reads> {
+    const signal = this.readAbort.signal;
+    const done = [0, 0];
+    const total = [0, 0];
+    const progress = (i: number) => (d: number, t: number) => {
+      done[i] = d;
+      total[i] = t;
+      if (signal.aborted) return;
+      const all = total[0] + total[1];
+      this.showProgress(`Reading ${label} from the sheet in blocks: ${formatCount(done[0] + done[1])} of ${formatCount(all)} cells (${Math.floor((100 * (done[0] + done[1])) / Math.max(1, all))}%)…`);
+    };
+    const [x, y] = await Promise.all([
+      readNumericColumn(this.wb, c.x, { signal, onProgress: progress(0) }),
+      readNumericColumn(this.wb, c.y, { signal, onProgress: progress(1) }),
+    ]);
     return [x, y];
   }
 
@@ -239,6 +264,8 @@ export class PanelController {
 
   private async refresh(cause: RefreshCause): Promise<void> {
     const gen = ++this.generation;
+    this.readAbort.abort();
+    this.readAbort = new AbortController();
     const started = now();
     const phases: Record<string, number> = {};
     let mark = started;
@@ -258,7 +285,7 @@ export class PanelController {
       this.setState('busy');
       let reads: Reads;
       try {
-        reads = await this.readPair(main);
+        reads = await this.readPair(main, 'the pair');
       } catch (e) {
         if (gen !== this.generation) return;
         this.showFailure(`Could not read the columns: ${e instanceof Error ? e.message : String(e)}`);
@@ -266,6 +293,9 @@ export class PanelController {
       }
       if (gen !== this.generation) return;
       lap('read');
+      const note = functionCallNote(this.wb.functionArgumentLimit?.() ?? null, [reads[0].numbers, reads[1].numbers]);
+      this.hostNote.textContent = note ?? '';
+      this.hostNote.classList.toggle('cv-hidden', note === null);
       if (!this.compute.usesWorker(reads[0].numbers.length) && this.warmUp.primeFor(reads, reads[0].numbers.length)) lap('prime');
       this.mainReads = reads;
       this.picker.showResolved({ header: reads[0].header, where: whereOf(reads[0]) }, { header: reads[1].header, where: whereOf(reads[1]) });
@@ -338,7 +368,7 @@ export class PanelController {
     }
     let readsB: Reads;
     try {
-      readsB = await this.readPair(second);
+      readsB = await this.readPair(second, 'pair B');
     } catch (e) {
       if (gen !== this.generation) return false;
       this.compare.render({ error: `Could not read pair B: ${e instanceof Error ? e.message : String(e)}` }, null);

@@ -12,10 +12,58 @@
  *   when the user acts.
  * - Writes switch events off (context.runtime.enableEvents) so that the panel's own writes do not come back as
  *   change notifications, and switch them on again whatever happens.
+ * - Excel on the web refuses a request or response over 5 MB, or a read of more than 5,000,000 cells (Microsoft
+ *   Learn, "Resource limits and performance optimization for Office Add-ins", section Excel add-ins). A long
+ *   column is therefore read, and a large block written, in blocks of rows sized to use at most half of either
+ *   limit, from the bytes its cells have been seen to take; a block the host still refuses as too large is halved
+ *   and tried again. Each block is one request, so progress is reported and a stale read is cancelled between
+ *   blocks.
  */
 import { blocksIntersect, CellBlock, formatBlock, MAX_ROWS, parseAddress } from '../src/sheet/a1';
 import { headerText } from '../src/sheet/cells';
-import type { ColumnSource, RangeRead, TableInfo, Workbook } from './workbook';
+import { WEB_FUNCTION_ARGUMENT_BYTES } from './host-limits';
+import { ReadCancelled } from './workbook';
+import type { ColumnSource, RangeRead, ReadOptions, TableInfo, Workbook } from './workbook';
+
+/** Excel on the web's limits per request (see the note at the top). */
+export const WEB_REQUEST_LIMITS = { bytes: 5 * 1024 * 1024, cells: 5_000_000 };
+/** The share of either limit one block may use: the rest covers the envelope of the response and misjudged cells. */
+const BLOCK_SHARE = 0.5;
+/** Bytes per cell assumed before any cell has been seen: a full-precision number with its separators
+ *  ("-0.12345678901234567," is 21) and room to spare. */
+export const FIRST_GUESS_BYTES = 32;
+
+/** Rows per block for a block `columns` wide whose cells take about `bytesPerCell` bytes each. */
+export function rowsPerBlock(columns: number, bytesPerCell: number): number {
+  const cells = Math.min(WEB_REQUEST_LIMITS.cells * BLOCK_SHARE, (WEB_REQUEST_LIMITS.bytes * BLOCK_SHARE) / Math.max(1, bytesPerCell));
+  return Math.max(1, Math.floor(cells / Math.max(1, columns)));
+}
+
+/** The bytes a block of values takes as JSON, as the host sends it (numbers as their shortest text, strings quoted
+ *  and escaped, one separator per cell and per row). */
+export function payloadBytes(values: unknown[][]): number {
+  let bytes = 2;
+  for (const row of values) {
+    bytes += 3;
+    for (const v of row) {
+      if (typeof v === 'number') bytes += String(v).length + 1;
+      else if (typeof v === 'string') bytes += JSON.stringify(v).length + 1;
+      else bytes += 6; // true, false, null
+    }
+  }
+  return bytes;
+}
+
+/** Whether a failed request was refused for its size (RichApi.Error code, or the message of older hosts). */
+export function isPayloadTooLarge(e: unknown): boolean {
+  const code = (e as { code?: unknown })?.code;
+  const message = e instanceof Error ? e.message : String(e);
+  return code === 'RequestPayloadSizeLimitExceeded' || code === 'ResponsePayloadSizeLimitExceeded' || /payload size|too large/i.test(message);
+}
+
+function throwIfCancelled(options?: ReadOptions): void {
+  if (options?.signal?.aborted) throw new ReadCancelled();
+}
 
 /** Excel's rules for sheet names: at most 31 characters, none of : \ / ? * [ ], not blank. */
 export function sanitizeSheetName(name: string): string {
@@ -52,7 +100,9 @@ function headerOf(values: unknown[][], fallback: string): string {
 }
 
 function rectangular(cells: (string | number)[][]): (string | number)[][] {
-  const width = Math.max(1, ...cells.map((r) => r.length));
+  // A loop, not Math.max(...rows): spreading a quarter of a million rows into arguments overflows the stack.
+  let width = 1;
+  for (const r of cells) if (r.length > width) width = r.length;
   return cells.map((r) => (r.length === width ? r : [...r, ...Array<string>(width - r.length).fill('')]));
 }
 
@@ -61,7 +111,72 @@ function rangeRead(r: Excel.Range, sheet: string): RangeRead {
   return { address: r.address, sheet, firstRow: r.rowIndex + 1, firstColumn: r.columnIndex + 1, values: r.values };
 }
 
+/**
+ * Writes `block` with its top-left cell at `topLeft`, in blocks of rows that stay within the web's request
+ * limits: one request when it fits, as a report does.
+ */
+async function writeInBlocks(context: Excel.RequestContext, topLeft: Excel.Range, block: (string | number)[][]): Promise<void> {
+  const columns = block[0].length;
+  const seen = payloadBytes(block) / Math.max(1, block.length * columns);
+  const perBlock = rowsPerBlock(columns, Math.max(seen * 1.25, 1));
+  for (let done = 0; done < block.length; done += perBlock) {
+    const rows = block.slice(done, done + perBlock);
+    const target = done === 0 ? topLeft : topLeft.getOffsetRange(done, 0);
+    target.getResizedRange(rows.length - 1, columns - 1).formulas = rows;
+    await context.sync();
+  }
+}
+
+/**
+ * Reads `range` in blocks of rows that stay within the web's request limits (see the note at the top): its shape
+ * first, then one request per block, the block size following the bytes the cells were seen to take. Null when
+ * the range is a null object (a whole-column pick on an empty sheet). Loads the sheet's name on the way.
+ * @throws ReadCancelled when options.signal is aborted between blocks.
+ */
+async function readInBlocks(context: Excel.RequestContext, range: Excel.Range, sheet: Excel.Worksheet, options?: ReadOptions): Promise<RangeRead | null> {
+  sheet.load('name');
+  range.load('address,rowIndex,columnIndex,rowCount,columnCount');
+  await context.sync();
+  if (range.isNullObject) return null;
+  const rows = range.rowCount;
+  const columns = range.columnCount;
+  const values: unknown[][] = [];
+  let perBlock = rowsPerBlock(columns, FIRST_GUESS_BYTES);
+  const several = rows > perBlock;
+  for (let done = 0; done < rows; ) {
+    throwIfCancelled(options);
+    const take = Math.min(perBlock, rows - done);
+    const part = range.getCell(done, 0).getResizedRange(take - 1, columns - 1);
+    part.load('values');
+    try {
+      await context.sync();
+    } catch (e) {
+      if (take > 1 && isPayloadTooLarge(e)) {
+        perBlock = Math.max(1, take >> 1);
+        continue;
+      }
+      throw e;
+    }
+    const got = part.values;
+    for (let i = 0; i < got.length; i++) values.push(got[i]);
+    done += take;
+    // The next block sized from what these cells took, with a quarter to spare (never above the first guess
+    // for cells smaller than it, so one block of short numbers does not make the next one huge).
+    const seen = payloadBytes(got) / Math.max(1, take * columns);
+    perBlock = rowsPerBlock(columns, Math.max(seen * 1.25, Math.min(FIRST_GUESS_BYTES, seen * 2)));
+    if (several) options?.onProgress?.(done, rows);
+  }
+  throwIfCancelled(options);
+  return { address: range.address, sheet: sheet.name, firstRow: range.rowIndex + 1, firstColumn: range.columnIndex + 1, values };
+}
+
 export class ExcelWorkbook implements Workbook {
+  /** About 5 MB per call on Excel on the web (Office.context.platform "OfficeOnline"); none known on desktop. */
+  functionArgumentLimit(): number | null {
+    const platform = typeof Office !== 'undefined' ? (Office.context as { platform?: unknown } | undefined)?.platform : undefined;
+    return String(platform) === 'OfficeOnline' ? WEB_FUNCTION_ARGUMENT_BYTES : null;
+  }
+
   async getSelection(): Promise<string> {
     return Excel.run(async (context) => {
       // getSelectedRanges (ExcelApi 1.9) keeps Ctrl-picked areas; older hosts only have the single range.
@@ -95,40 +210,47 @@ export class ExcelWorkbook implements Workbook {
     });
   }
 
-  async readColumn(source: ColumnSource): Promise<RangeRead & { header: string }> {
+  async readColumn(source: ColumnSource, options?: ReadOptions): Promise<RangeRead & { header: string }> {
     if (source.kind === 'table') {
       return Excel.run(async (context) => {
         const table = context.workbook.tables.getItem(source.table);
         const body = table.columns.getItem(source.column).getDataBodyRange();
-        body.load('address,values,rowIndex,columnIndex');
         const sheet = table.worksheet;
-        sheet.load('name');
-        await context.sync();
-        return { ...rangeRead(body, sheet.name), header: source.column };
+        const read = await readInBlocks(context, body, sheet, options);
+        return { ...read!, header: source.column };
       });
     }
-    const read = await this.readRange(source.address);
+    const read = await this.readRange(source.address, options);
     return { ...read, header: headerOf(read.values, read.address) };
   }
 
-  async readRange(address: string): Promise<RangeRead> {
+  async readRange(address: string, options?: ReadOptions): Promise<RangeRead> {
     const blocks = parseAddress(address);
     if (!blocks || blocks.length !== 1) throw new Error(`${address} is not one block of cells`);
     const block = blocks[0];
     return Excel.run(async (context) => {
       const sheet = block.sheet ? context.workbook.worksheets.getItem(block.sheet) : context.workbook.worksheets.getActiveWorksheet();
-      sheet.load('name');
       let range = sheet.getRange(localReference(block));
-      if (block.lastRow - block.firstRow + 1 >= MAX_ROWS / 2) {
+      const rows = block.lastRow - block.firstRow + 1;
+      const columns = block.lastColumn - block.firstColumn + 1;
+      if (rows >= MAX_ROWS / 2) {
         // Whole columns: read only the part in use.
         range = range.getIntersectionOrNullObject(sheet.getUsedRange(true));
+      } else if (rows <= rowsPerBlock(columns, FIRST_GUESS_BYTES)) {
+        // Small enough for one request unless its cells hold long text: one round trip, as before, and the
+        // blocks only if the host refuses it for its size.
+        sheet.load('name');
+        range.load('address,values,rowIndex,columnIndex');
+        try {
+          await context.sync();
+          return rangeRead(range, sheet.name);
+        } catch (e) {
+          if (!isPayloadTooLarge(e)) throw e;
+          range = sheet.getRange(localReference(block));
+        }
       }
-      range.load('address,values,rowIndex,columnIndex');
-      await context.sync();
-      if (range.isNullObject) {
-        return { address, sheet: sheet.name, firstRow: block.firstRow, firstColumn: block.firstColumn, values: [] };
-      }
-      return rangeRead(range, sheet.name);
+      const read = await readInBlocks(context, range, sheet, options);
+      return read ?? { address, sheet: sheet.name, firstRow: block.firstRow, firstColumn: block.firstColumn, values: [] };
     });
   }
 
@@ -188,9 +310,8 @@ export class ExcelWorkbook implements Workbook {
       const sheet = at.sheet ? context.workbook.worksheets.getItem(at.sheet) : context.workbook.worksheets.getActiveWorksheet();
       context.runtime.enableEvents = false;
       try {
-        const range = sheet.getRange(formatBlock({ ...at, lastRow: at.firstRow, lastColumn: at.firstColumn }, { withoutSheet: true })).getResizedRange(block.length - 1, block[0].length - 1);
-        range.formulas = block;
-        await context.sync();
+        const topLeft = sheet.getRange(formatBlock({ ...at, lastRow: at.firstRow, lastColumn: at.firstColumn }, { withoutSheet: true }));
+        await writeInBlocks(context, topLeft, block);
       } finally {
         context.runtime.enableEvents = true;
         await context.sync();
@@ -208,7 +329,7 @@ export class ExcelWorkbook implements Workbook {
       context.runtime.enableEvents = false;
       try {
         const sheet = sheets.add(unique);
-        if (block.length > 0) sheet.getRange('A1').getResizedRange(block.length - 1, block[0].length - 1).formulas = block;
+        if (block.length > 0) await writeInBlocks(context, sheet.getRange('A1'), block);
         sheet.activate();
         await context.sync();
       } finally {

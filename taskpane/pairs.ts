@@ -11,7 +11,7 @@
 import type { CellBlock } from '../src/sheet/a1';
 import { readVector } from '../src/sheet/cells';
 import { completeRows as completeSheetRows } from '../src/sheet/pairs';
-import type { ColumnSource, NumericColumnRead, RangeRead, Workbook } from './workbook';
+import type { ColumnSource, NumericColumnRead, RangeRead, ReadOptions, Workbook } from './workbook';
 
 /** One column as readColumn gives it, with its header. */
 export type ColumnRead = RangeRead & { header: string };
@@ -45,9 +45,9 @@ export function numericColumn(read: ColumnRead): NumericColumnRead {
 }
 
 /** Reads one column as numbers, through the host's fast path when it has one. */
-export async function readNumericColumn(wb: Workbook, source: ColumnSource): Promise<NumericColumnRead> {
-  if (wb.readColumnNumbers) return wb.readColumnNumbers(source);
-  return numericColumn(await wb.readColumn(source));
+export async function readNumericColumn(wb: Workbook, source: ColumnSource, options?: ReadOptions): Promise<NumericColumnRead> {
+  if (wb.readColumnNumbers) return wb.readColumnNumbers(source, options);
+  return numericColumn(await wb.readColumn(source, options));
 }
 
 /** The data cells of a column as a block. */

@@ -94,6 +94,7 @@ export const PANEL_TEST_IDS = {
   actionStatus: 'action-status',
   status: 'status',
   progress: 'progress',
+  hostNote: 'host-note',
   /** Pickers: prefixes "main" and "second" with -mode-selection, -mode-table, -use-selection, -set-x, -set-y,
    *  -table, -x-column, -y-column, -pair-label. */
 } as const;

@@ -9,6 +9,8 @@
  *   form that gives numbers without building one JavaScript array per row. At 100,000 rows those per-row arrays
  *   are most of the garbage a redraw makes (the collector copying them dominated the redraw time); the panel
  *   uses this method when present and readColumn otherwise.
+ * - ReadOptions (optional on every read): progress for reads made in several requests, and a signal that cancels
+ *   a read once it is stale (the panel cancels the read of a previous refresh when cells change again).
  */
 
 /** A rectangular block of cells read from the workbook. */
@@ -50,18 +52,34 @@ export interface NumericColumnRead {
   numbers: Float64Array;
 }
 
+/** How a long read reports and stops. */
+export interface ReadOptions {
+  /** Called after each block with the rows read so far and the rows in all. Not called for a one-request read. */
+  onProgress?: (doneRows: number, totalRows: number) => void;
+  /** When aborted, the read stops before its next request and rejects with ReadCancelled. */
+  signal?: AbortSignal;
+}
+
+/** A read stopped by its signal: nothing of it is used. */
+export class ReadCancelled extends Error {
+  constructor() {
+    super('the read was cancelled: the cells changed again before it finished');
+    this.name = 'ReadCancelled';
+  }
+}
+
 export interface Workbook {
   /** Address of the current selection (may span several columns). */
   getSelection(): Promise<string>;
   /** Tables with a header row, for picking columns by header. */
   listTables(): Promise<TableInfo[]>;
   /** Reads a column source; for a range the header is the first cell when it is text, else the address. */
-  readColumn(source: ColumnSource): Promise<RangeRead & { header: string }>;
+  readColumn(source: ColumnSource, options?: ReadOptions): Promise<RangeRead & { header: string }>;
   /** Optional fast path for readColumn (see the note at the top). For a range, a text first cell is the header
    *  and not data, exactly as with readColumn. */
-  readColumnNumbers?(source: ColumnSource): Promise<NumericColumnRead>;
+  readColumnNumbers?(source: ColumnSource, options?: ReadOptions): Promise<NumericColumnRead>;
   /** Reads any range by address. */
-  readRange(address: string): Promise<RangeRead>;
+  readRange(address: string, options?: ReadOptions): Promise<RangeRead>;
   /** Calls onChange (possibly many times; the caller debounces) when any watched source may have changed.
    *  Returns a function that stops watching. */
   watch(sources: ColumnSource[], onChange: () => void): Promise<() => void>;
@@ -69,6 +87,9 @@ export interface Workbook {
   selectRow(sheet: string, row: number): Promise<void>;
   /** Writes values or formulas ("=COVARY.COEF(...)") into a block starting at the top-left cell address. */
   writeCells(topLeft: string, cells: (string | number)[][]): Promise<void>;
+  /** Optional: the bytes of arguments the host passes a cell function per call, or null when it sets no known
+   *  limit (host-limits.ts). */
+  functionArgumentLimit?(): number | null;
   /** Adds a new sheet (a unique name derived from `name`) holding the given cells; returns its name. */
   addSheet(name: string, cells: (string | number)[][]): Promise<string>;
 }

@@ -14,7 +14,8 @@ jest.mock('office-addin-manifest', () => ({
   OfficeApp: { Excel: 'excel', OneNote: 'onenote', Outlook: 'outlook', PowerPoint: 'powerpoint', Project: 'project', Word: 'word' },
 }));
 import { columnLetters, formatBlock, parseAddress } from '../../../src/sheet/a1';
-import { ExcelWorkbook, sanitizeSheetName, touches, uniqueSheetName } from '../../../taskpane/excel-workbook';
+import { ExcelWorkbook, payloadBytes, rowsPerBlock, sanitizeSheetName, touches, uniqueSheetName } from '../../../taskpane/excel-workbook';
+import { ReadCancelled } from '../../../taskpane/workbook';
 
 interface TableDef {
   name: string;
@@ -44,6 +45,54 @@ class World {
   tableHandlers = new Map<string, Handler[]>();
   context!: OfficeMockObject;
 
+  /** Requests made (context.sync calls that reached the host) and the largest response and request seen. */
+  requests = 0;
+  /** The limits enforced: Excel on the web's unless a test lowers them. */
+  limits = { cells: 5_000_000, bytes: 5 * 1024 * 1024 };
+  largestResponse = { cells: 0, bytes: 0 };
+  largestRequest = { cells: 0, bytes: 0 };
+  private counted = new Set<OfficeMockObject>();
+
+  /**
+   * Excel on the web's limits, enforced per request as the host does (Microsoft Learn, "Resource limits and
+   * performance optimization for Office Add-ins", Excel add-ins: 5 MB per request or response, 5,000,000 cells
+   * per read): the values loaded and the formulas written in this batch, measured as JSON. A batch over either
+   * limit fails as the host fails it, with nothing read or written. (The error's code is this double's choice;
+   * the module under test must recognise a refusal for size by its message as well.)
+   */
+  enforceRequestLimits(): void {
+    this.requests++;
+    const response = { cells: 0, bytes: 0 };
+    const request = { cells: 0, bytes: 0 };
+    const fresh: OfficeMockObject[] = [];
+    for (const m of this.created) {
+      if (this.counted.has(m)) continue;
+      const props = (m as unknown as { _properties: Map<string, { _loaded: boolean }> })._properties;
+      const loadedValues = props.get('values')?._loaded;
+      const written = (m as unknown as { formulas?: unknown[][] }).formulas;
+      if (loadedValues) {
+        const values = (m as unknown as { _properties: Map<string, { _valueBeforeLoaded: unknown[][] }> })._properties.get('values')!._valueBeforeLoaded;
+        response.cells += values.reduce((k, r) => k + r.length, 0);
+        response.bytes += JSON.stringify(values).length;
+        fresh.push(m);
+      }
+      if (Array.isArray(written)) {
+        request.cells += written.reduce((k, r) => k + r.length, 0);
+        request.bytes += JSON.stringify(written).length;
+        fresh.push(m);
+      }
+    }
+    const over = (x: { cells: number; bytes: number }) => x.cells > this.limits.cells || x.bytes > this.limits.bytes;
+    for (const m of fresh) this.counted.add(m);
+    if (over(response) || over(request)) {
+      const e = new Error(`The ${over(request) ? 'request' : 'response'} payload size has exceeded the limit (Excel on the web: 5 MB, 5,000,000 cells)`);
+      (e as Error & { code: string }).code = over(request) ? 'RequestPayloadSizeLimitExceeded' : 'ResponsePayloadSizeLimitExceeded';
+      throw e;
+    }
+    if (response.bytes > this.largestResponse.bytes) this.largestResponse = response;
+    if (request.bytes > this.largestRequest.bytes) this.largestRequest = request;
+  }
+
   track<T extends OfficeMockObject>(m: T): T {
     this.created.push(m);
     return m;
@@ -60,8 +109,8 @@ class World {
 
   range(sheet: string, r1: number, c1: number, r2: number, c2: number): OfficeMockObject {
     // A whole-column range is never read here: the module must cut it to the used range first.
-    const values: unknown[][] = r2 - r1 > 100000 ? [['whole column read without cutting it to the used range']] : [];
-    for (let r = r1; r <= r2 && r2 - r1 <= 100000; r++) {
+    const values: unknown[][] = r2 - r1 + 1 > 500000 ? [["whole column read without cutting it to the used range"]] : [];
+    for (let r = r1; r <= r2 && r2 - r1 + 1 <= 500000; r++) {
       const row: unknown[] = [];
       for (let c = c1; c <= c2; c++) row.push(this.cell(sheet, r, c));
       values.push(row);
@@ -74,6 +123,14 @@ class World {
         values,
         rowIndex: r1 - 1,
         columnIndex: c1 - 1,
+        rowCount: r2 - r1 + 1,
+        columnCount: c2 - c1 + 1,
+        getCell(dr: number, dc: number) {
+          return world.range(sheet, r1 + dr, c1 + dc, r1 + dr, c1 + dc);
+        },
+        getOffsetRange(dr: number, dc: number) {
+          return world.range(sheet, r1 + dr, c1 + dc, r2 + dr, c2 + dc);
+        },
         select() {
           world.log.push(`select ${address}`);
         },
@@ -209,6 +266,7 @@ class World {
         const failure = world.failNextSync;
         world.failNextSync = null;
         if (failure) throw new Error(failure);
+        world.enforceRequestLimits();
         for (const m of world.created) await m.sync();
       },
     });
@@ -362,5 +420,96 @@ describe('helpers', () => {
     expect(touches('A1:C1', b)).toBe(false);
     expect(touches('A1:C5', b)).toBe(true);
     expect(touches('D2:D49', b)).toBe(false);
+  });
+});
+
+describe('long columns in blocks within the web host\'s request limits (the double fails any request over them)', () => {
+  const ROWS = 1_000_000;
+  let seed = 99;
+  const rnd = () => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648);
+  function bigWorld(): { w: World; column: number[] } {
+    const w = new World();
+    const column = Array.from({ length: ROWS }, () => rnd() * 1000 - 300); // full-precision doubles, ~18 digits
+    w.sheets.set('Big', [['Basket value'], ...column.map((v) => [v])]);
+    w.tables.push({ name: 'Baskets', sheet: 'Big', headerRow: 1, firstColumn: 1, columns: ['Basket value'], lastRow: ROWS + 1 });
+    w.install();
+    return { w, column };
+  }
+
+  test('the double refuses a one-request read of a million full-precision numbers', async () => {
+    const { w } = bigWorld();
+    const body = w.range('Big', 2, 1, 400001, 1); // 400,000 numbers in one load: about 8 MB of JSON
+    body.load('values');
+    await expect((w.context as unknown as { sync(): Promise<void> }).sync()).rejects.toThrow(/payload size has exceeded the limit/);
+  });
+
+  test.each([
+    ['a table column', { kind: 'table', table: 'Baskets', column: 'Basket value' } as const],
+    ['a range', { kind: 'range', address: 'Big!A1:A1000001' } as const],
+    ['a whole column', { kind: 'range', address: 'Big!A:A' } as const],
+  ])('%s of 1,000,000 rows is read whole, request by request, with progress', async (_label, source) => {
+    const { w, column } = bigWorld();
+    const progress: number[] = [];
+    const read = await new ExcelWorkbook().readColumn(source, { onProgress: (done, total) => progress.push(done / total) });
+    const data = source.kind === 'table' ? read.values : read.values.slice(1);
+    expect(data).toHaveLength(ROWS);
+    expect(data[0][0]).toBe(column[0]);
+    expect(data[ROWS - 1][0]).toBe(column[ROWS - 1]);
+    expect(data[123457][0]).toBe(column[123457]);
+    expect(w.requests).toBeGreaterThan(10);
+    expect(w.largestResponse.bytes).toBeLessThanOrEqual(5 * 1024 * 1024);
+    expect(progress.length).toBeGreaterThan(5);
+    expect(progress[progress.length - 1]).toBe(1);
+    for (let i = 1; i < progress.length; i++) expect(progress[i]).toBeGreaterThan(progress[i - 1]);
+  });
+
+  test('long text cells shrink the blocks as they are seen; a block refused for size is halved and tried again', async () => {
+    const w = new World();
+    const note = 'checked by the regional office, see the monthly review for the full account of this basket '.repeat(3);
+    w.sheets.set('Notes', [['Note'], ...Array.from({ length: 60000 }, (_, i) => [`${i} ${note}`])]);
+    w.limits = { cells: 5_000_000, bytes: 2 * 1024 * 1024 }; // a stricter host: the first guess is too large for it
+    w.install();
+    const read = await new ExcelWorkbook().readRange('Notes!A2:A60001');
+    expect(read.values).toHaveLength(60000);
+    expect(read.values[59999][0]).toBe(`59999 ${note}`);
+    expect(w.largestResponse.bytes).toBeLessThanOrEqual(2 * 1024 * 1024);
+  });
+
+  test('an aborted read stops before its next request and says it was cancelled', async () => {
+    const { w } = bigWorld();
+    const stop = new AbortController();
+    const reading = new ExcelWorkbook().readColumn({ kind: 'table', table: 'Baskets', column: 'Basket value' }, {
+      signal: stop.signal,
+      onProgress: (done) => {
+        if (done > 200000) stop.abort();
+      },
+    });
+    await expect(reading).rejects.toBeInstanceOf(ReadCancelled);
+    expect(w.requests).toBeLessThan(8);
+  });
+
+  test('a large block is written in pieces, each within the limits', async () => {
+    const w = new World();
+    w.sheets.set('Out', []);
+    w.install();
+    const block = Array.from({ length: 250000 }, (_, i) => [i * 1.0000001, `row ${i}`]);
+    await new ExcelWorkbook().writeCells('Out!A1', block);
+    const written = w.writtenRanges.map((r) => (r as unknown as { formulas: unknown[][] }).formulas).filter(Array.isArray);
+    expect(written.length).toBeGreaterThan(1);
+    expect(written.flat().length).toBe(250000);
+    expect(written[written.length - 1][written[written.length - 1].length - 1]).toEqual([249999 * 1.0000001, 'row 249999']);
+    expect(w.largestRequest.bytes).toBeLessThanOrEqual(5 * 1024 * 1024);
+    expect(w.writtenAddresses[1]).toBe(`Out!A${1 + written[0].length}:B${written[0].length + written[1].length}`);
+  });
+
+  test('block sizes: from the cells\' JSON bytes, half of either limit', () => {
+    expect(rowsPerBlock(1, 32)).toBe(Math.floor((5 * 1024 * 1024 * 0.5) / 32));
+    expect(rowsPerBlock(4, 32)).toBe(Math.floor((5 * 1024 * 1024 * 0.5) / 32 / 4));
+    expect(rowsPerBlock(1, 0.1)).toBe(2_500_000);
+    // An estimate from above of the JSON the host sends (never below it, within a few bytes per row).
+    const block = [[1.5, 'a"b'], [null as unknown as number, true as unknown as number], [-0.12345678901234567, '']];
+    const json = JSON.stringify(block).length;
+    expect(payloadBytes(block)).toBeGreaterThanOrEqual(json);
+    expect(payloadBytes(block)).toBeLessThanOrEqual(json + 4 * block.length);
   });
 });
