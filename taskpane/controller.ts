@@ -114,8 +114,8 @@ export class PanelController {
     root.appendChild(panel);
 
     const pick = (row: number): void => this.selectRow(row);
-    this.picker = new PairPicker(wb, 'main', { x: 'X', y: 'Y' }, () => this.state.main, (c) => this.choose('main', c));
-    this.secondPicker = new PairPicker(wb, 'second', { x: 'X₂', y: 'Y₂' }, () => this.state.second, (c) => this.choose('second', c));
+    this.picker = new PairPicker(wb, 'main', { x: 'X', y: 'Y' }, () => this.state.main, (c) => this.choose('main', c), (m) => this.unusable('main', m));
+    this.secondPicker = new PairPicker(wb, 'second', { x: 'X₂', y: 'Y₂' }, () => this.state.second, (c) => this.choose('second', c), (m) => this.unusable('second', m));
     const actions = writeActions(wb, () => this.writeSubject());
     this.relationship = new RelationshipSection(this.picker.element, actions, this.state, {
       method: (m) => this.set({ method: m }),
@@ -186,6 +186,33 @@ export class PanelController {
     this.scheduler.now();
   }
 
+  /** A pick that cannot be used: the pair is dropped, and the result it replaced is cleared with the reason. */
+  private unusable(which: 'main' | 'second', message: string): void {
+    ++this.generation;
+    this.readAbort.abort();
+    this.state[which] = null;
+    void this.rewatch();
+    if (which === 'main') {
+      this.mainReads = null;
+      this.showFailure(message);
+    } else this.compare.render({ error: message }, null);
+  }
+
+  /**
+   * A table column renamed since the pick was read at its place (ColumnSource.position) under its new name: the
+   * pick takes the new name, so the dropdowns, labels, axes and the next reads all use it.
+   */
+  private followRenames(which: 'main' | 'second', choice: PairChoice, reads: Reads): void {
+    const renamed = (s: ColumnSource, read: NumericColumnRead): ColumnSource =>
+      s.kind === 'table' && read.header !== s.column ? { ...s, column: read.header } : s;
+    const x = renamed(choice.x, reads[0]);
+    const y = renamed(choice.y, reads[1]);
+    if (x === choice.x && y === choice.y) return;
+    const next = { x, y };
+    this.state[which] = next;
+    (which === 'main' ? this.picker : this.secondPicker).show(next);
+  }
+
   private writeSubject(): WriteSubject | null {
     const { main, method, level, alpha, a1References } = this.state;
     if (!this.mainReads || !main) return null;
@@ -254,7 +281,11 @@ export class PanelController {
     return [x, y];
   }
 
-  private showFailure(text: string): void {
+  private showFailure(raw: string): void {
+    // Messages from the core start in lower case, as cell errors do; on the panel they start a sentence.
+    const text = raw.charAt(0).toUpperCase() + raw.slice(1);
+    // The header's live region says it too, so a screen reader hears the problem, and no earlier count stays.
+    this.say(`Not computed: ${text}`);
     this.current = null;
     this.relationship.clear();
     this.residuals.show(false);
@@ -293,6 +324,7 @@ export class PanelController {
       }
       if (gen !== this.generation) return;
       lap('read');
+      this.followRenames('main', main, reads);
       const note = functionCallNote(this.wb.functionArgumentLimit?.() ?? null, [reads[0].numbers, reads[1].numbers]);
       this.hostNote.textContent = note ?? '';
       this.hostNote.classList.toggle('cv-hidden', note === null);
@@ -351,7 +383,9 @@ export class PanelController {
       }
       if (!isFailure(view)) {
         this.setState('ready');
-        this.say(`${formatCount(view.n)} pairs · updated in ${Math.round(this.lastRenderMs)} ms`);
+        // The live region says what a listener needs: the rows behind the figures. (The time each redraw took is
+        // developer information: it stays in data-last-render-ms.)
+        this.say(`${formatCount(view.n)} pairs${pairs.skipped > 0 ? `, ${formatCount(pairs.skipped)} ${pairs.skipped === 1 ? 'row' : 'rows'} skipped` : ''}`);
       }
     } finally {
       if (gen === this.generation) this.showProgress(null);
@@ -375,6 +409,7 @@ export class PanelController {
       return true;
     }
     if (gen !== this.generation) return false;
+    this.followRenames('second', second, readsB);
     this.secondPicker.showResolved({ header: readsB[0].header, where: whereOf(readsB[0]) }, { header: readsB[1].header, where: whereOf(readsB[1]) });
     const blocksA: [CellBlock, CellBlock] = [dataBlock(reads[0]), dataBlock(reads[1])];
     const blocksB: [CellBlock, CellBlock] = [dataBlock(readsB[0]), dataBlock(readsB[1])];

@@ -203,10 +203,18 @@ export class ExcelWorkbook implements Workbook {
         sheet.load('name');
         const header = t.getHeaderRowRange();
         header.load('values');
-        return { name: t.name, sheet, header };
+        // The first data row tells number columns from text ones (the picker's defaults skip text).
+        const first = t.getDataBodyRange().getRow(0);
+        first.load('values');
+        return { name: t.name, sheet, header, first };
       });
       await context.sync();
-      return parts.map((p) => ({ name: p.name, sheet: p.sheet.name, columns: (p.header.values[0] ?? []).map((v) => String(v)) }));
+      return parts.map((p) => ({
+        name: p.name,
+        sheet: p.sheet.name,
+        columns: (p.header.values[0] ?? []).map((v) => String(v)),
+        numeric: (p.first.values[0] ?? []).map((v) => typeof v === 'number'),
+      }));
     });
   }
 
@@ -214,10 +222,18 @@ export class ExcelWorkbook implements Workbook {
     if (source.kind === 'table') {
       return Excel.run(async (context) => {
         const table = context.workbook.tables.getItem(source.table);
-        const body = table.columns.getItem(source.column).getDataBodyRange();
         const sheet = table.worksheet;
-        const read = await readInBlocks(context, body, sheet, options);
-        return { ...read!, header: source.column };
+        // By name; a column renamed since the pick is found at its place, and the read carries its new name.
+        let column = table.columns.getItemOrNullObject(source.column);
+        column.load('name');
+        let read = await readInBlocks(context, column.getDataBodyRange(), sheet, options);
+        if (column.isNullObject) {
+          if (source.position === undefined) throw new Error(`table ${source.table} has no column "${source.column}"`);
+          column = table.columns.getItemAt(source.position);
+          column.load('name');
+          read = await readInBlocks(context, column.getDataBodyRange(), sheet, options);
+        }
+        return { ...read!, header: column.name };
       });
     }
     const read = await this.readRange(source.address, options);

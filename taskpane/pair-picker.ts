@@ -41,6 +41,8 @@ export class PairPicker {
     private readonly names: { x: string; y: string },
     private readonly current: () => PairChoice | null,
     private readonly onChoose: (choice: PairChoice) => void,
+    /** A pick that cannot be used (the same column twice): the panel must not go on showing the last result. */
+    private readonly onUnusable: (message: string) => void = () => undefined,
   ) {
     this.modeSelection = el('button', { class: 'cv-seg cv-seg-on', text: 'Selected cells', testid: `${prefix}-mode-selection`, attrs: { type: 'button', 'aria-pressed': 'true' } });
     this.modeTable = el('button', { class: 'cv-seg', text: 'Table columns', testid: `${prefix}-mode-table`, attrs: { type: 'button', 'aria-pressed': 'false' } });
@@ -104,10 +106,14 @@ export class PairPicker {
 
   /** Shows what was actually read, e.g. "x: Visits (Branches!C2:C49)". */
   showResolved(x: { header: string; where: string }, y: { header: string; where: string }): void {
-    fill(this.label, [
-      el('span', { class: 'cv-pair-part' }, [el('span', { class: 'cv-pair-axis', text: `${this.names.x}: ` }), el('span', { text: x.header }), el('span', { class: 'cv-muted', text: ` (${x.where})` })]),
-      el('span', { class: 'cv-pair-part' }, [el('span', { class: 'cv-pair-axis', text: `${this.names.y}: ` }), el('span', { text: y.header }), el('span', { class: 'cv-muted', text: ` (${y.where})` })]),
-    ]);
+    // A column without a header is named by its address: shown once, not as "B2:B49 (B2:B49)".
+    const part = (axis: string, c: { header: string; where: string }) =>
+      el('span', { class: 'cv-pair-part' }, [
+        el('span', { class: 'cv-pair-axis', text: `${axis}: ` }),
+        el('span', { text: c.header }),
+        ...(c.header === c.where ? [] : [el('span', { class: 'cv-muted', text: ` (${c.where})` })]),
+      ]);
+    fill(this.label, [part(this.names.x, x), part(this.names.y, y)]);
   }
 
   private showSources(choice: PairChoice): void {
@@ -148,8 +154,11 @@ export class PairPicker {
     setOptions(this.xSelect, cols, !resetPicks);
     setOptions(this.ySelect, cols, !resetPicks);
     if (cols.length > 1 && (resetPicks || this.xSelect.value === this.ySelect.value)) {
-      this.xSelect.value = cols[0].value;
-      this.ySelect.value = cols[1].value;
+      // The first two columns of numbers (a table usually starts with a label column: names, months).
+      const numeric = t!.columns.map((_, i) => i).filter((i) => t!.numeric?.[i] !== false);
+      const [a, b] = numeric.length >= 2 ? numeric : [0, 1];
+      this.xSelect.value = cols[a].value;
+      this.ySelect.value = cols[b].value;
     }
   }
 
@@ -157,11 +166,18 @@ export class PairPicker {
     const table = this.tableSelect.value;
     if (!table || !this.xSelect.value || !this.ySelect.value) return;
     if (this.xSelect.value === this.ySelect.value) {
-      this.say(`Pick two different columns for ${this.names.x} and ${this.names.y}.`);
+      const text = `${this.names.x} and ${this.names.y} are the same column (${this.xSelect.value}): pick two different columns.`;
+      this.say(text);
+      this.onUnusable(text);
       return;
     }
     this.say('');
-    this.commit({ x: { kind: 'table', table, column: this.xSelect.value }, y: { kind: 'table', table, column: this.ySelect.value } });
+    const columns = this.tables.find((k) => k.name === table)?.columns ?? [];
+    const at = (c: string) => (columns.indexOf(c) >= 0 ? columns.indexOf(c) : undefined);
+    this.commit({
+      x: { kind: 'table', table, column: this.xSelect.value, position: at(this.xSelect.value) },
+      y: { kind: 'table', table, column: this.ySelect.value, position: at(this.ySelect.value) },
+    });
   }
 
   private commit(choice: PairChoice): void {

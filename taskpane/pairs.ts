@@ -93,6 +93,18 @@ export function pairColumns(xc: NumericColumnRead, yc: NumericColumnRead): Paire
   }
   const total = xs.length;
   const kept = completeSheetRows([xs, ys]);
+  if (kept.columns[0].length < 3) {
+    // Say why, column by column: a label column (names, months) picked by mistake is the usual cause.
+    const numbers = (v: Float64Array) => {
+      let k = 0;
+      for (let i = 0; i < v.length; i++) if (v[i] === v[i]) k++;
+      return k;
+    };
+    const empty = [xc, yc].filter((c) => numbers(c.numbers) === 0).map((c) => `“${c.header}”`);
+    if (empty.length > 0) {
+      throw new PairingError(`${empty.join(' and ')} ${empty.length === 1 ? 'holds' : 'hold'} no numbers (only text or blanks): pick ${empty.length === 1 ? 'a column' : 'columns'} of numbers.`);
+    }
+  }
   const [x, y] = kept.columns;
   const rows = new Int32Array(x.length);
   for (let j = 0; j < rows.length; j++) rows[j] = xc.firstRow + (kept.index ? kept.index[j] : j);

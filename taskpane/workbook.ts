@@ -30,12 +30,21 @@ export interface TableInfo {
   name: string;
   sheet: string;
   columns: string[];
+  /** Optional: whether each column's first data cell holds a number (the picker's defaults skip text columns). */
+  numeric?: boolean[];
 }
 
 /** A column picked by the user: either a fixed range or a table column that follows the table as it grows. */
 export type ColumnSource =
   | { kind: 'range'; address: string }
-  | { kind: 'table'; table: string; column: string };
+  | {
+      kind: 'table';
+      table: string;
+      column: string;
+      /** The column's place in the table (0-based) when it was picked: a column renamed since is found there,
+       *  and the read's header gives its new name. */
+      position?: number;
+    };
 
 /** A column's data cells as numbers: the fast path of Workbook.readColumnNumbers. */
 export interface NumericColumnRead {

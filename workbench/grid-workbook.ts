@@ -30,12 +30,16 @@ export class GridWorkbook implements Workbook {
   }
 
   async listTables(): Promise<TableInfo[]> {
-    return this.model.tables.map((t) => ({ name: t.name, sheet: t.sheet, columns: this.headers(t) }));
+    return this.model.tables.map((t) => {
+      const columns = this.headers(t);
+      const numeric = columns.map((_, i) => typeof this.model.value(t.sheet, t.top + 1, t.left + i) === 'number');
+      return { name: t.name, sheet: t.sheet, columns, numeric };
+    });
   }
 
   async readColumn(source: ColumnSource): Promise<RangeRead & { header: string }> {
     if (source.kind === 'table') {
-      const { table, area } = this.tableColumn(source.table, source.column);
+      const { table, area } = this.tableColumn(source.table, source.column, source.position);
       const header = this.headers(table)[area.left - table.left];
       return { ...this.read(area), header };
     }
@@ -51,7 +55,7 @@ export class GridWorkbook implements Workbook {
     let area: Area;
     let header: string;
     if (source.kind === 'table') {
-      const t = this.tableColumn(source.table, source.column);
+      const t = this.tableColumn(source.table, source.column, source.position);
       area = t.area;
       header = this.headers(t.table)[area.left - t.table.left];
     } else {
@@ -122,10 +126,15 @@ export class GridWorkbook implements Workbook {
     return this.model.tableHeaders(t);
   }
 
-  private tableColumn(tableName: string, column: string): { table: TableBlock; area: Area } {
+  /** A table column by name, or, when no column has that name any more (renamed), by its place at the pick. */
+  private tableColumn(tableName: string, column: string, position?: number): { table: TableBlock; area: Area } {
     const table = this.model.table(tableName);
     if (!table) throw new Error(`there is no table named ${tableName}`);
-    const area = this.model.tableColumnArea(table.name, column, 'data');
+    let area = this.model.tableColumnArea(table.name, column, 'data');
+    const headers = this.headers(table);
+    if (isErrorValue(area) && position !== undefined && position >= 0 && position < headers.length) {
+      area = this.model.tableColumnArea(table.name, headers[position], 'data');
+    }
     if (isErrorValue(area)) throw new Error(area.message ?? `table ${tableName} has no column "${column}"`);
     return { table, area };
   }
@@ -133,7 +142,7 @@ export class GridWorkbook implements Workbook {
   private sourceArea(s: ColumnSource): Area | null {
     try {
       if (s.kind === 'table') {
-        const { table, area } = this.tableColumn(s.table, s.column);
+        const { table, area } = this.tableColumn(s.table, s.column, s.position);
         // The header cell counts too: renaming a column changes what the panel shows.
         return { ...area, top: table.top };
       }

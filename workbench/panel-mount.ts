@@ -6,13 +6,13 @@ import { mountPanel, PanelHandle } from '../taskpane/panel';
 import type { Workbook } from '../taskpane/workbook';
 
 export const DEMO_PAIR = {
-  x: { kind: 'table', table: 'NorthWorkshops', column: 'Mechanics (FTE)' },
-  y: { kind: 'table', table: 'NorthWorkshops', column: 'Repairs per week' },
+  x: { kind: 'table', table: 'NorthWorkshops', column: 'Mechanics (FTE)', position: 1 },
+  y: { kind: 'table', table: 'NorthWorkshops', column: 'Repairs per week', position: 2 },
 } as const;
 
 export const DEMO_COMPARE_PAIR = {
-  x: { kind: 'table', table: 'SouthWorkshops', column: 'Mechanics (FTE)' },
-  y: { kind: 'table', table: 'SouthWorkshops', column: 'Repairs per week' },
+  x: { kind: 'table', table: 'SouthWorkshops', column: 'Mechanics (FTE)', position: 1 },
+  y: { kind: 'table', table: 'SouthWorkshops', column: 'Repairs per week', position: 2 },
 } as const;
 
 export function mountPanelInWorkbench(root: HTMLElement, workbook: Workbook): PanelHandle | null {

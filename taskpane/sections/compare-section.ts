@@ -109,7 +109,7 @@ export class CompareSection {
     const crosses = r.interval.lower < 0 && r.interval.upper > 0;
     this.note.textContent = `${METHOD_LABELS[r.method].name} correlations (the coefficient chosen above). ${describeComparison(r)}. ${crosses
       ? 'The interval of the difference includes zero: these data do not show the two correlations differ.'
-      : 'The interval of the difference excludes zero.'}${view.skipped > 0 ? ` ${formatCount(view.skipped)} incomplete rows skipped.` : ''}`;
+      : 'The interval of the difference excludes zero.'}${view.skipped > 0 ? ` ${formatCount(view.skipped)} incomplete ${view.skipped === 1 ? 'row' : 'rows'} skipped.` : ''}`;
   }
 
   destroy(): void {

@@ -128,6 +128,9 @@ class World {
         getCell(dr: number, dc: number) {
           return world.range(sheet, r1 + dr, c1 + dc, r1 + dr, c1 + dc);
         },
+        getRow(i: number) {
+          return world.range(sheet, r1 + i, c1, r1 + i, c2);
+        },
         getOffsetRange(dr: number, dc: number) {
           return world.range(sheet, r1 + dr, c1 + dc, r2 + dr, c2 + dc);
         },
@@ -197,11 +200,22 @@ class World {
         getHeaderRowRange() {
           return world.range(t.sheet, t.headerRow, t.firstColumn, t.headerRow, t.firstColumn + t.columns.length - 1);
         },
+        getDataBodyRange() {
+          return world.range(t.sheet, t.headerRow + 1, t.firstColumn, t.lastRow, t.firstColumn + t.columns.length - 1);
+        },
         columns: {
           getItem(column: string) {
             const c = t.columns.indexOf(column);
             if (c < 0) throw new Error(`ItemNotFound: ${column}`);
-            return { getDataBodyRange: () => world.range(t.sheet, t.headerRow + 1, t.firstColumn + c, t.lastRow, t.firstColumn + c) };
+            return world.tableColumn(t, c);
+          },
+          getItemOrNullObject(column: string) {
+            const c = t.columns.indexOf(column);
+            return c < 0 ? world.nullColumn() : world.tableColumn(t, c);
+          },
+          getItemAt(c: number) {
+            if (c < 0 || c >= t.columns.length) throw new Error(`ItemNotFound: column ${c}`);
+            return world.tableColumn(t, c);
           },
         },
         onChanged: {
@@ -214,6 +228,27 @@ class World {
         },
       }),
     );
+  }
+
+  tableColumn(t: TableDef, c: number): OfficeMockObject {
+    const world = this;
+    const m = this.track(
+      new OfficeMockObject({
+        name: t.columns[c],
+        getDataBodyRange: () => world.range(t.sheet, t.headerRow + 1, t.firstColumn + c, t.lastRow, t.firstColumn + c),
+      }),
+    );
+    (m as unknown as { isNullObject: boolean }).isNullObject = false;
+    return m;
+  }
+
+  /** What getItemOrNullObject gives for a missing column: a null object whose range is a null object too. */
+  nullColumn(): OfficeMockObject {
+    const range = this.track(new OfficeMockObject({ address: '', rowIndex: 0, columnIndex: 0, rowCount: 0, columnCount: 0, values: [] }));
+    (range as unknown as { isNullObject: boolean }).isNullObject = true;
+    const m = this.track(new OfficeMockObject({ name: '', getDataBodyRange: () => range }));
+    (m as unknown as { isNullObject: boolean }).isNullObject = true;
+    return m;
   }
 
   install(): void {
@@ -314,7 +349,19 @@ describe('ExcelWorkbook on office-addin-mock', () => {
 
   test('listTables names each table, its sheet and its headers', async () => {
     demoWorld();
-    expect(await new ExcelWorkbook().listTables()).toEqual([{ name: 'NorthBranches', sheet: 'North', columns: ['Branch', 'Oven hours', 'Loaves sold'] }]);
+    expect(await new ExcelWorkbook().listTables()).toEqual([
+      { name: 'NorthBranches', sheet: 'North', columns: ['Branch', 'Oven hours', 'Loaves sold'], numeric: [false, true, true] },
+    ]);
+  });
+
+  test('a renamed table column is found at its place and read under its new name; without a place it is an error', async () => {
+    const w = demoWorld();
+    w.tables[0].columns[1] = 'Oven hours (weekly)';
+    w.sheets.get('North')![0][1] = 'Oven hours (weekly)';
+    const read = await new ExcelWorkbook().readColumn({ kind: 'table', table: 'NorthBranches', column: 'Oven hours', position: 1 });
+    expect(read.header).toBe('Oven hours (weekly)');
+    expect(read.values).toEqual([[41], [55], [''], [60]]);
+    await expect(new ExcelWorkbook().readColumn({ kind: 'table', table: 'NorthBranches', column: 'Oven hours' })).rejects.toThrow('table NorthBranches has no column "Oven hours"');
   });
 
   test('a table column is read by header through its data body (rowIndex/columnIndex are 0-based)', async () => {

@@ -87,3 +87,9 @@ describe('completeRows', () => {
     expect(r.columns.map((c) => Array.from(c))).toEqual([[1, 4], [1, 4], [1, 4]]);
   });
 });
+
+test('a column with no numbers at all is named, with what to do', () => {
+  const x = column('S', 1, 1, ['Workshop', 'Aldersey', 'Brockwell', '']);
+  const y = column('S', 1, 2, ['Mechanics (FTE)', 1, 2, 3]);
+  expect(() => pairColumns(x, y)).toThrow('“Workshop” holds no numbers (only text or blanks): pick a column of numbers.');
+});

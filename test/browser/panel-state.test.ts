@@ -1,0 +1,107 @@
+/**
+ * The panel's state after the edits an analyst makes, in Debian's Chromium against the workbench: a renamed
+ * header is followed (dropdowns, label and the reading take the new name, and later edits still move the panel
+ * with the sheet's own COEF formula), the same column picked for X and Y clears the result with the reason, a
+ * table's default pair skips its label column, the header's live region says when nothing could be computed,
+ * and a column without a header is named once. The expected figures are the grid's COEF formula cells (the cell
+ * functions in the formula worker, a second route through the core), never the panel's own output.
+ */
+import type { PanelDebug } from '../../taskpane/panel';
+import { BrowserSession, RunningWorkbench, cellValue, openBrowser, screenshot, settle, startWorkbench, typeInto } from './harness';
+import type { Page } from 'playwright-core';
+
+declare global {
+  interface Window {
+    __covaryPanel?: PanelDebug;
+  }
+}
+
+jest.setTimeout(120000);
+
+let server: RunningWorkbench;
+let browser: BrowserSession;
+const page = () => browser.page;
+const testid = (id: string) => page().locator(`[data-testid="${id}"]`);
+
+async function panelIdle(p: Page): Promise<void> {
+  await p.waitForFunction(() => window.__covaryPanel !== undefined, undefined, { timeout: 30000 });
+  await p.evaluate(() => window.__covaryPanel!.whenIdle());
+}
+
+async function afterRedraw(action: () => Promise<unknown>): Promise<void> {
+  const before = await page().evaluate(() => window.__covaryPanel!.renderCount());
+  await action();
+  await page().waitForFunction((n) => window.__covaryPanel!.renderCount() > n, before, { timeout: 30000 });
+  await panelIdle(page());
+}
+
+/** Waits for the panel to finish whatever an action started (a redraw or a failure). */
+async function afterAction(action: () => Promise<unknown>): Promise<void> {
+  await action();
+  await settle(page());
+  await panelIdle(page());
+}
+
+beforeAll(async () => {
+  server = await startWorkbench();
+  browser = await openBrowser(server.origin);
+  await browser.page.goto(server.url);
+  await settle(browser.page);
+  await browser.page.waitForFunction(() => window.__covaryPanel?.summary() != null, undefined, { timeout: 30000 });
+  await panelIdle(browser.page);
+}, 300000);
+
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+describe('a renamed header', () => {
+  test('is followed by the pick, and later edits still move the panel with the sheet', async () => {
+    await afterRedraw(() => typeInto(page(), 'North', 'B1', 'Staff FTE'));
+    await expect(testid('main-pair-label').textContent()).resolves.toContain('Staff FTE');
+    const options = await page().locator('[data-testid="main-x-column"] option').allTextContents();
+    expect(options).toContain('Staff FTE');
+    await expect(testid('main-x-column').inputValue()).resolves.toBe('Staff FTE');
+    // An edit after the rename: the panel and the sheet's COEF formula over the same cells move together.
+    await afterRedraw(() => typeInto(page(), 'North', 'B5', '99'));
+    const formula = (await cellValue(page(), 'North!N2')) as number;
+    const shown = (await page().evaluate(() => window.__covaryPanel!.summary()))!;
+    expect(Math.abs(shown.r - formula)).toBeLessThan(1e-9);
+    await screenshot(page(), 'panel-after-rename');
+  });
+});
+
+describe('picks that cannot be used', () => {
+  test('the same column for X and Y clears the result and says why', async () => {
+    await afterAction(() => testid('main-y-column').selectOption({ label: 'Staff FTE' }));
+    await expect(page().evaluate(() => window.__covaryPanel!.summary())).resolves.toBeNull();
+    await expect(testid('status').textContent()).resolves.toBe('Not computed: X and Y are the same column (Staff FTE): pick two different columns.');
+    await expect(testid('r-value').isVisible()).resolves.toBe(false);
+  });
+
+  test('a label column picked as X is named in the message, and the status says nothing was computed', async () => {
+    await afterAction(async () => {
+      await testid('main-y-column').selectOption({ label: 'Repairs per week' });
+      await testid('main-x-column').selectOption({ label: 'Workshop' });
+    });
+    await expect(testid('status').textContent()).resolves.toBe('Not computed: “Workshop” holds no numbers (only text or blanks): pick a column of numbers.');
+    await expect(page().evaluate(() => window.__covaryPanel!.summary())).resolves.toBeNull();
+  });
+
+  test('choosing another table defaults to its first two columns of numbers, not its label column', async () => {
+    await afterRedraw(async () => {
+      await testid('main-table').selectOption({ index: 1 });
+    });
+    const x = await testid('main-x-column').inputValue();
+    const y = await testid('main-y-column').inputValue();
+    expect([x, y]).not.toContain('Workshop');
+    expect([x, y]).not.toContain('Month');
+    expect(await page().evaluate(() => window.__covaryPanel!.summary())).not.toBeNull();
+    await expect(testid('status').textContent()).resolves.toMatch(/^\d[\d,]* pairs/);
+  });
+});
+
+test('the page raised no errors', () => {
+  expect(browser.pageErrors).toEqual([]);
+});
