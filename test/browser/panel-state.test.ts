@@ -105,3 +105,49 @@ describe('picks that cannot be used', () => {
 test('the page raised no errors', () => {
   expect(browser.pageErrors).toEqual([]);
 });
+
+describe('accessibility of the panel (WCAG 2.1 AA, checked by axe-core)', () => {
+  test('the source toggle shows its focus ring when reached by keyboard, not clipped by its group', async () => {
+    await testid('main-mode-selection').focus();
+    await page().keyboard.press('Tab');
+    const ring = await page().evaluate(() => {
+      const b = document.activeElement as HTMLElement;
+      const st = getComputedStyle(b);
+      const clippers: string[] = [];
+      for (let e = b.parentElement; e && e.dataset.testid !== 'panel-root'; e = e.parentElement) {
+        const o = getComputedStyle(e);
+        // Only a box the ring would cross counts: the button's own group and anything as tight around it.
+        const r = e.getBoundingClientRect();
+        const br = b.getBoundingClientRect();
+        const tight = br.left - r.left < 4 || r.right - br.right < 4 || br.top - r.top < 4 || r.bottom - br.bottom < 4;
+        if (tight && (o.overflow !== 'visible' || o.overflowX !== 'visible')) clippers.push(e.className);
+      }
+      return { id: b.dataset.testid, outline: `${st.outlineStyle} ${st.outlineWidth}`, clippers };
+    });
+    expect(ring).toEqual({ id: 'main-mode-table', outline: 'solid 2px', clippers: [] });
+  });
+
+  test('axe-core reports no violations in the panel', async () => {
+    // Every folded part opened, so the checker sees all of the panel's text.
+    await page().evaluate(() => document.querySelectorAll('[data-testid="panel-root"] details').forEach((d) => ((d as HTMLDetailsElement).open = true)));
+    // Evaluated through the debugging protocol, which the page's Content-Security-Policy does not govern (a
+    // script tag would be refused by it, as it should be).
+    const source = require('fs').readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8') as string;
+    await page().evaluate(source);
+    const violations = await page().evaluate(async () => {
+      const axe = (window as unknown as { axe: { run(el: Element, opts: object): Promise<{ violations: { id: string; impact: string; help: string; nodes: { target: string[]; failureSummary: string }[] }[] }> } }).axe;
+      const res = await axe.run(document.querySelector('[data-testid="panel-root"]')!, {
+        runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'] },
+      });
+      return {
+        passed: (res as unknown as { passes: { id: string }[] }).passes.map((p) => p.id),
+        incomplete: (res as unknown as { incomplete: { id: string; nodes: unknown[] }[] }).incomplete.map((p) => `${p.id} (${p.nodes.length})`),
+        violations: res.violations.map((v) => ({ id: v.id, impact: v.impact, help: v.help, nodes: v.nodes.slice(0, 5).map((n) => `${n.target.join(' ')}: ${n.failureSummary}`) })),
+      };
+    });
+    process.stdout.write(`axe-core: ${violations.passed.length} rules passed (${violations.passed.join(', ')}); needs review: ${violations.incomplete.join(', ') || 'none'}\n`);
+    // The checker ran its colour-contrast and naming rules on the panel, not on an empty node.
+    expect(violations.passed).toEqual(expect.arrayContaining(['color-contrast', 'button-name', 'select-name', 'aria-allowed-attr']));
+    expect(violations.violations).toEqual([]);
+  });
+});
