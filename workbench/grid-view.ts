@@ -133,6 +133,12 @@ export class GridView {
     return this.sheetName;
   }
 
+  /** Where F6 lands in each of the grid's regions: the name box, the grid itself, the active sheet's tab. */
+  focusTargets(): { bar: HTMLElement; grid: HTMLElement; tabs: HTMLElement } {
+    const active = this.tabs.querySelector<HTMLElement>('.wb-tab.active') ?? this.tabs.querySelector<HTMLElement>('.wb-tab') ?? this.tabs;
+    return { bar: this.nameBox, grid: this.scroller, tabs: active };
+  }
+
   /** The selected area on the active sheet. */
   selectionArea(): Area {
     return {

@@ -2,6 +2,7 @@
  * Workbench entry: builds the demo workbook, draws the grid, starts the formula worker (which hosts
  * dist/functions.js as Excel does), calculates every formula, and mounts the real panel on the grid's workbook.
  */
+import { firstFocusable, installRegionKeys } from './regions';
 import { Calculator } from './calculator';
 import { COMPANY, demoWorkbook } from './demo-data';
 import { FormulaEvaluator } from './formula-evaluator';
@@ -77,6 +78,13 @@ function start(): void {
   });
 
   mountPanelInWorkbench(panelRoot, workbook);
+  const targets = () => view.focusTargets();
+  installRegionKeys(document, [
+    { name: 'formula bar', contains: (e) => !!e && e.closest('.wb-bar') !== null, entry: () => targets().bar },
+    { name: 'grid', contains: (e) => e === targets().grid || (!!e && targets().grid.contains(e)), entry: () => targets().grid },
+    { name: 'sheet tabs', contains: (e) => !!e && e.closest('.wb-tabs') !== null, entry: () => targets().tabs },
+    { name: 'panel', contains: (e) => !!e && panelRoot.contains(e), entry: () => firstFocusable(panelRoot) },
+  ]);
 }
 
 start();

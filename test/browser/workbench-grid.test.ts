@@ -219,6 +219,37 @@ describe('cell text is data, never markup', () => {
   });
 });
 
+describe('the keyboard reaches every region', () => {
+  const focused = () =>
+    page().evaluate(() => {
+      const a = document.activeElement as HTMLElement | null;
+      if (!a) return 'nothing';
+      if (a.closest('[data-testid="panel-root"]')) return 'panel';
+      if (a.closest('.wb-tabs')) return `tab ${a.textContent}`;
+      return a.dataset.testid ?? a.tagName.toLowerCase();
+    });
+
+  test('Tab inside the grid moves the active cell and stays there; F6 and Shift+F6 move between regions', async () => {
+    await showSheet(page(), 'North');
+    await page().getByTestId('grid').focus();
+    for (let i = 0; i < 60; i++) await page().keyboard.press('Tab');
+    // As in a spreadsheet, Tab moved the active cell: 60 columns to the right of where it was.
+    await expect(focused()).resolves.toBe('grid');
+    await page().keyboard.press('F6');
+    await expect(focused()).resolves.toBe('tab North');
+    await page().keyboard.press('F6');
+    await expect(focused()).resolves.toBe('panel');
+    await page().keyboard.press('F6');
+    await expect(focused()).resolves.toBe('name-box');
+    await page().keyboard.press('F6');
+    await expect(focused()).resolves.toBe('grid');
+    await page().keyboard.press('Shift+F6');
+    await expect(focused()).resolves.toBe('name-box');
+    await page().keyboard.press('Shift+F6');
+    await expect(focused()).resolves.toBe('panel');
+  });
+});
+
 describe('after all of the above', () => {
   test('no request left localhost and the page raised no errors', async () => {
     expect(browser.requests.length).toBeGreaterThan(3);
