@@ -22,7 +22,7 @@ export function errorValue(error: string, message?: string): ErrorValue {
 
 /**
  * What a typed entry means, as a spreadsheet reads it: "=..." is a formula, numbers become numbers, TRUE/FALSE
- * become booleans, an empty entry clears the cell, anything else stays text (so "<b>" is text, never markup).
+ * become booleans ("5%", "$5" and "1,234" become the numbers Excel makes of them), an empty entry clears the cell, anything else stays text (so "<b>" is text, never markup).
  * A leading apostrophe marks the rest as text whatever it looks like ("'=1+1" is the text "=1+1"), as in Excel;
  * the panel enters every text it writes that way (src/sheet/entries.ts).
  */
@@ -36,6 +36,14 @@ export function readEntry(typed: string | number | boolean | null): Entry {
   const trimmed = typed.trim();
   if (trimmed === '') return { kind: 'value', value: null };
   if (/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(trimmed)) return { kind: 'value', value: Number(trimmed) };
+  // As Excel (en-US) reads typed numbers with a percent sign, a currency sign or thousands separators: "5%" is
+  // 0.05, "$1,234.50" is 1234.5, "-€5" is -5. (It also keeps a display format; the workbench shows the number.)
+  const dressed = /^([+-]?)([$€£]?)(\d{1,3}(?:,\d{3})+|\d+)?(\.\d*)?(%?)$/.exec(trimmed);
+  if (dressed && (dressed[3] !== undefined || (dressed[4] !== undefined && dressed[4].length > 1)) && (dressed[2] || dressed[5] || (dressed[3] ?? '').includes(','))) {
+    const digits = `${dressed[3] ?? '0'}`.replace(/,/g, '') + (dressed[4] ?? '');
+    const magnitude = dressed[5] ? Number(digits) / 100 : Number(digits);
+    return { kind: 'value', value: dressed[1] === '-' ? -magnitude : magnitude };
+  }
   const upper = trimmed.toUpperCase();
   if (upper === 'TRUE' || upper === 'FALSE') return { kind: 'value', value: upper === 'TRUE' };
   return { kind: 'value', value: typed };

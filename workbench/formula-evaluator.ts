@@ -126,6 +126,19 @@ export class FormulaEvaluator {
     if (!repeating && argNodes.length > params.length) {
       return single(errorValue('#VALUE!', `${FUNCTION_NAMESPACE}.${meta.name} takes at most ${params.length} argument${params.length === 1 ? '' : 's'}`));
     }
+    // Excel refuses a formula that leaves out a required argument before calling anything; so does the workbench,
+    // naming what is missing.
+    const required = params.filter((p) => !p.optional);
+    if (argNodes.length < required.length) {
+      const missing = required.slice(argNodes.length).map((p) => p.name);
+      return single(
+        errorValue(
+          '#VALUE!',
+          `${FUNCTION_NAMESPACE}.${meta.name} needs ${required.length} argument${required.length === 1 ? '' : 's'} (${required.map((p) => p.name).join(', ')}); ` +
+            `${missing.join(' and ')} ${missing.length === 1 ? 'is' : 'are'} missing`,
+        ),
+      );
+    }
 
     // The range arguments, cut together to the used extent (see clipToUsed).
     const refNodes: FormulaNode[] = [];

@@ -29,10 +29,16 @@ export function headerText(first: unknown): string | null {
   return typeof first === 'string' && first.trim() !== '' ? first : null;
 }
 
+/** The error for an argument that is not a range: a missing one says so (the usual slip is a forgotten range). */
+function notARange(range: unknown, name: string): StatsInputError {
+  if (range === undefined || range === null) return new StatsInputError('out-of-range', `${name} is missing: give a range of cells for it`);
+  return new StatsInputError('out-of-range', `${name} must be a range of cells`);
+}
+
 /** Rows and columns of a rectangular range; throws a user error for anything else. Reads no cell. */
 export function rangeShape(range: CellRange, name: string): { rows: number; cols: number } {
   if (!Array.isArray(range) || range.length === 0 || !Array.isArray(range[0]) || range[0].length === 0) {
-    throw new StatsInputError('out-of-range', `${name} must be a range of cells`);
+    throw notARange(range, name);
   }
   return { rows: range.length, cols: range[0].length };
 }
@@ -40,7 +46,7 @@ export function rangeShape(range: CellRange, name: string): { rows: number; cols
 /** Length of a range that must be a single row or a single column; throws a user error otherwise. */
 export function vectorLength(range: CellRange, name: string): number {
   if (!Array.isArray(range) || range.length === 0 || !Array.isArray(range[0])) {
-    throw new StatsInputError('out-of-range', `${name} must be a range of cells`);
+    throw notARange(range, name);
   }
   const rows = range.length;
   const cols = range[0].length;

@@ -219,6 +219,29 @@ describe('cell text is data, never markup', () => {
   });
 });
 
+describe('entries as Excel reads them', () => {
+  test('a formula missing a required argument says which one; "5%" and "$1,234.50" become numbers', async () => {
+    await showSheet(page(), 'Live formulas');
+    // Through the name box and the formula bar: column Z is off screen.
+    const enter = async (address: string, text: string) => {
+      await page().getByTestId('name-box').fill(address);
+      await page().getByTestId('name-box').press('Enter');
+      await page().getByTestId('formula-bar').fill(text);
+      await page().getByTestId('formula-bar').press('Enter');
+      await settle(page());
+    };
+    await enter('Z2', '=COVARY.COEF(North!B2:B49)');
+    await expect(cellValue(page(), "'Live formulas'!Z2")).resolves.toEqual({
+      error: '#VALUE!',
+      message: 'COVARY.COEF needs 2 arguments (x, y); y is missing',
+    });
+    await enter('Z3', '5%');
+    await enter('Z4', '$1,234.50');
+    await expect(cellValue(page(), "'Live formulas'!Z3")).resolves.toBe(0.05);
+    await expect(cellValue(page(), "'Live formulas'!Z4")).resolves.toBe(1234.5);
+  });
+});
+
 describe('the keyboard reaches every region', () => {
   const focused = () =>
     page().evaluate(() => {

@@ -91,6 +91,17 @@ describe('typed entries and how values read', () => {
     expect(readEntry('')).toEqual({ kind: 'value', value: null });
   });
 
+  test('percent, currency and thousands separators become numbers as Excel (en-US) reads them; odd shapes stay text', () => {
+    // Excel: typing 5% stores 0.05, $1,234.50 stores 1234.5, 1,234 stores 1234 (recalled from using Excel).
+    expect(readEntry('5%')).toEqual({ kind: 'value', value: 0.05 });
+    expect(readEntry('-2.5%')).toEqual({ kind: 'value', value: -0.025 });
+    expect(readEntry('$5')).toEqual({ kind: 'value', value: 5 });
+    expect(readEntry('$1,234.50')).toEqual({ kind: 'value', value: 1234.5 });
+    expect(readEntry('-€5')).toEqual({ kind: 'value', value: -5 });
+    expect(readEntry('1,234')).toEqual({ kind: 'value', value: 1234 });
+    for (const text of ['12,34', '$', '%', '5%%', '1,2345', '$$5', 'N05']) expect(readEntry(text)).toEqual({ kind: 'value', value: text });
+  });
+
   test("a leading apostrophe keeps the rest as text, as in Excel (how the panel writes every text)", () => {
     expect(readEntry("'=HYPERLINK(\"x\")")).toEqual({ kind: 'value', value: '=HYPERLINK("x")' });
     expect(readEntry("'42")).toEqual({ kind: 'value', value: '42' });
