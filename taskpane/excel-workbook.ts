@@ -308,6 +308,19 @@ export class ExcelWorkbook implements Workbook {
     };
   }
 
+  async selectRange(address: string): Promise<void> {
+    const blocks = parseAddress(address);
+    if (!blocks || blocks.length !== 1) throw new Error(`${address} is not one block of cells`);
+    const block = blocks[0];
+    await Excel.run(async (context) => {
+      const sheet = block.sheet ? context.workbook.worksheets.getItem(block.sheet) : context.workbook.worksheets.getActiveWorksheet();
+      sheet.activate();
+      // Range.select brings the block into view in Excel.
+      sheet.getRange(localReference(block)).select();
+      await context.sync();
+    });
+  }
+
   async selectRow(sheetName: string, row: number): Promise<void> {
     await Excel.run(async (context) => {
       const sheet = context.workbook.worksheets.getItem(sheetName);

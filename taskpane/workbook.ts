@@ -92,6 +92,8 @@ export interface Workbook {
   /** Calls onChange (possibly many times; the caller debounces) when any watched source may have changed.
    *  Returns a function that stops watching. */
   watch(sources: ColumnSource[], onChange: () => void): Promise<() => void>;
+  /** Optional: selects a block and brings it into view (after a write, so the user sees what was written). */
+  selectRange?(address: string): Promise<void>;
   /** Selects a whole sheet row (1-based) so the user sees it. */
   selectRow(sheet: string, row: number): Promise<void>;
   /** Writes values or formulas ("=COVARY.COEF(...)") into a block starting at the top-left cell address. */

@@ -25,6 +25,17 @@ export function writeActions(wb: Workbook, subject: () => WriteSubject | null): 
   const reportButton = button('Write report sheet', PANEL_TEST_IDS.reportButton);
   const status = el('div', { class: 'cv-inline-message', testid: PANEL_TEST_IDS.actionStatus, attrs: { role: 'status' } });
 
+  /** Where this panel last wrote the formulas of each pair and options, so a second click does not write a copy. */
+  const written = new Map<string, string>();
+  const keyOf = (s: WriteSubject) => JSON.stringify([s.choice, s.options]);
+  const show = async (address: string) => {
+    try {
+      await wb.selectRange?.(address);
+    } catch {
+      // Selecting is a courtesy: the status line says where the formulas are either way.
+    }
+  };
+
   const refsOf = (s: WriteSubject): [ColumnRef, ColumnRef] => [
     { source: s.choice.x, block: dataBlock(s.reads[0]) },
     { source: s.choice.y, block: dataBlock(s.reads[1]) },
@@ -39,12 +50,26 @@ export function writeActions(wb: Workbook, subject: () => WriteSubject | null): 
     const [xr, yr] = refsOf(s);
     const sheet = xr.block.sheet;
     try {
+      const key = keyOf(s);
+      const earlier = written.get(key);
+      if (earlier) {
+        // Still there (not cleared since): show them instead of writing a second copy.
+        const seen = await wb.readRange(earlier);
+        if (!allBlank(seen.values)) {
+          await show(earlier);
+          status.textContent = `The formulas for this pair are already at ${earlier} (selected). They recalculate with the sheet.`;
+          return;
+        }
+      }
       for (const place of formulaPlaces([xr.block, yr.block])) {
         const seen = await wb.readRange(formatBlock(place));
         if (!allBlank(seen.values)) continue;
         const cells = formulaBlock(xr, yr, { x: s.reads[0].header, y: s.reads[1].header }, sheet, s.options);
         await wb.writeCells(topLeftOf(place), cells);
-        status.textContent = `Formulas written at ${formatBlock({ ...place, lastColumn: place.firstColumn + 1 })}. They recalculate with the sheet.`;
+        const at = formatBlock({ ...place, lastRow: place.firstRow + cells.length - 1, lastColumn: place.firstColumn + Math.max(...cells.map((r) => r.length)) - 1 });
+        written.set(key, at);
+        await show(at);
+        status.textContent = `Formulas written at ${at} (selected). They recalculate with the sheet.`;
         return;
       }
       status.textContent = 'No empty space found to the right of the data: clear a few columns there and try again.';

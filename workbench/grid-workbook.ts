@@ -88,6 +88,10 @@ export class GridWorkbook implements Workbook {
     });
   }
 
+  async selectRange(address: string): Promise<void> {
+    this.view.select(this.parse(address), { flash: true });
+  }
+
   async selectRow(sheet: string, row: number): Promise<void> {
     this.view.selectRow(sheet, row);
   }

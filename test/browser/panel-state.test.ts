@@ -106,6 +106,38 @@ test('the page raised no errors', () => {
   expect(browser.pageErrors).toEqual([]);
 });
 
+describe('writing formulas', () => {
+  test('"Put formulas in sheet" selects what it wrote, and a second click shows them instead of writing a copy', async () => {
+    // Back to the demo pair of the North table.
+    await afterRedraw(async () => {
+      await testid('main-table').selectOption({ index: 0 });
+      await testid('main-x-column').selectOption({ label: 'Staff FTE' });
+      await testid('main-y-column').selectOption({ label: 'Repairs per week' });
+    });
+    const countFormulas = () =>
+      page().evaluate(() => {
+        let k = 0;
+        for (let c = 12; c <= 60; c++) {
+          let col = '';
+          for (let n = c; n > 0; n = Math.floor((n - 1) / 26)) col = String.fromCharCode(65 + ((n - 1) % 26)) + col;
+          for (let r = 1; r <= 12; r++) if (window.covaryWorkbench!.entry(`North!${col}${r}`).startsWith('=COVARY.COEF(')) k++;
+        }
+        return k;
+      });
+    const before = await countFormulas();
+    await testid('btn-formulas').click();
+    await page().waitForFunction(() => /Formulas written at/.test(document.querySelector('[data-testid="action-status"]')?.textContent ?? ''), undefined, { timeout: 15000 });
+    const status = (await testid('action-status').textContent())!;
+    const at = /Formulas written at (\S+) \(selected\)/.exec(status)![1];
+    await expect(page().evaluate(() => window.covaryWorkbench!.selection())).resolves.toBe(at);
+    expect(await countFormulas()).toBe(before + 1);
+    await testid('btn-formulas').click();
+    await page().waitForFunction(() => /already at/.test(document.querySelector('[data-testid="action-status"]')?.textContent ?? ''), undefined, { timeout: 15000 });
+    await expect(testid('action-status').textContent()).resolves.toBe(`The formulas for this pair are already at ${at} (selected). They recalculate with the sheet.`);
+    expect(await countFormulas()).toBe(before + 1);
+  });
+});
+
 describe('accessibility of the panel (WCAG 2.1 AA, checked by axe-core)', () => {
   test('the source toggle shows its focus ring when reached by keyboard, not clipped by its group', async () => {
     await testid('main-mode-selection').focus();
