@@ -11,7 +11,7 @@ import { compareSharedSamples } from '../src/stats/compare/shared';
 import { ComparisonResult } from '../src/stats/compare/comparison';
 import { correlate, correlationInterval } from '../src/stats/correlation/correlate';
 import { Interval, isClassical, Method, StatsInputError } from '../src/stats/types';
-import { Design, DesignDetection } from './design';
+import { Design, DESIGN_LABELS, DesignDetection } from './design';
 import { completeRows, dataBlock, pairColumns, PairedRows, PairingError } from './pairs';
 import type { NumericColumnRead } from './workbook';
 
@@ -26,6 +26,40 @@ export interface CompareView {
   where: { a: string; b: string };
   /** Rows dropped because a cell was not a number (per group for independent groups). */
   skipped: number;
+  /** Reasons to doubt that the comparison asks a sensible question (see comparisonCautions). */
+  cautions: string[];
+}
+
+/** What each design assumes about how the rows were collected. */
+const ASSUMES: Record<Design, string> = {
+  independent: 'the two pairs come from different people or rows',
+  shared: 'both pairs are measured on the same rows and share one column',
+  separate: 'all four columns are measured on the same rows',
+};
+
+const sameMeasure = (p: NumericColumnRead, q: NumericColumnRead) => p.header.trim().toLowerCase() === q.header.trim().toLowerCase();
+
+/**
+ * Cautions for a comparison: two groups compared on different measures (a groups test asks whether the same
+ * relationship differs between groups; "floor area with rent" against "mechanics with repairs" is not that
+ * question), and a design chosen against what the addresses show (its test then assumes something the rows may
+ * not satisfy).
+ */
+export function comparisonCautions(a: [NumericColumnRead, NumericColumnRead], b: [NumericColumnRead, NumericColumnRead], design: Design, detection: DesignDetection): string[] {
+  const out: string[] = [];
+  if (design === 'independent' && !(sameMeasure(a[0], b[0]) && sameMeasure(a[1], b[1]))) {
+    out.push(
+      `Pair A (${a[0].header} with ${a[1].header}) and pair B (${b[0].header} with ${b[1].header}) are not the same measures: ` +
+        'a comparison of two groups asks whether one relationship differs between them, so here it compares unlike things. Pick the same two columns in each group.',
+    );
+  }
+  if (detection.design && detection.design !== design) {
+    out.push(
+      `The addresses suggest “${DESIGN_LABELS[detection.design].toLowerCase()}”, but “${DESIGN_LABELS[design].toLowerCase()}” is chosen: ` +
+        `its test assumes ${ASSUMES[design]}. If that is not how the rows were collected, its interval and p-value do not hold.`,
+    );
+  }
+  return out;
 }
 
 export interface CompareFailure {
@@ -86,6 +120,7 @@ export function computeComparison(
       labels,
       where: { a: formatBlock(dataBlock(a[0])), b: formatBlock(dataBlock(b[0])) },
       skipped,
+      cautions: comparisonCautions(a, b, design, detection),
     };
   } catch (e) {
     if (e instanceof StatsInputError || e instanceof PairingError) return { error: e.message };

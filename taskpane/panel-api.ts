@@ -87,6 +87,7 @@ export const PANEL_TEST_IDS = {
   compareInterval: 'compare-interval',
   compareP: 'compare-p',
   compareMethod: 'compare-method',
+  compareCautions: 'compare-cautions',
   design: 'design-select',
   designDetected: 'design-detected',
   formulasButton: 'btn-formulas',

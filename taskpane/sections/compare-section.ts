@@ -24,6 +24,7 @@ export class CompareSection {
   private readonly message: HTMLElement;
   private readonly results: HTMLElement;
   private readonly note: HTMLElement;
+  private readonly cautions: HTMLElement;
   private readonly tiles: { r1: Tile; r2: Tile; diff: Tile; interval: Tile; p: Tile };
 
   constructor(picker: HTMLElement, design: DesignChoice, onDesign: (d: DesignChoice) => void) {
@@ -50,10 +51,12 @@ export class CompareSection {
       p: tile('p-value', PANEL_TEST_IDS.compareP),
     };
     this.note = el('div', { class: 'cv-chart-note', testid: PANEL_TEST_IDS.compareMethod });
+    this.cautions = el('ul', { class: 'cv-compare-cautions cv-hidden', testid: PANEL_TEST_IDS.compareCautions, attrs: { 'aria-label': 'Cautions about this comparison' } });
     this.results = el('div', { class: 'cv-hidden' }, [
       chart.root,
       el('div', { class: 'cv-tiles cv-tiles-2' }, [this.tiles.r1.root, this.tiles.r2.root]),
       el('div', { class: 'cv-tiles cv-tiles-3' }, [this.tiles.diff.root, this.tiles.interval.root, this.tiles.p.root]),
+      this.cautions,
       this.note,
     ]);
     fill(body, [
@@ -106,6 +109,8 @@ export class CompareSection {
     tiles.interval.value.setAttribute('data-upper', String(r.interval.upper));
     tiles.p.value.textContent = formatPValue(r.pValue);
     tiles.p.value.setAttribute('data-value', String(r.pValue));
+    fill(this.cautions, view.cautions.map((c) => el('li', { text: c })));
+    this.cautions.classList.toggle('cv-hidden', view.cautions.length === 0);
     const crosses = r.interval.lower < 0 && r.interval.upper > 0;
     this.note.textContent = `${METHOD_LABELS[r.method].name} correlations (the coefficient chosen above). ${describeComparison(r)}. ${crosses
       ? 'The interval of the difference includes zero: these data do not show the two correlations differ.'

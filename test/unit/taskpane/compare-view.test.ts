@@ -98,3 +98,31 @@ test('the comparison follows the coefficient chosen: Spearman groups compared wi
   expect(w.result.interval.method).toMatch(/percentile bootstrap of the difference/);
   expect(w.interval1.method).toMatch(/percentile bootstrap/);
 });
+
+describe('cautions on what a comparison asks', () => {
+  const north = [col('North', 2, 'Mechanics (FTE)', [1, 2, 3, 4, 5, 6]), col('North', 3, 'Repairs per week', [2, 4, 5, 4, 6, 8])] as [NumericColumnRead, NumericColumnRead];
+  const southSame = [col('South', 2, 'mechanics (FTE)', [2, 3, 1, 5, 4, 6]), col('South', 3, 'Repairs per week', [3, 3, 2, 6, 5, 6])] as [NumericColumnRead, NumericColumnRead];
+  const southOther = [col('South', 6, 'Floor area m²', [90, 120, 100, 150, 130, 170]), col('South', 7, 'Rent per month', [900, 1300, 1000, 1600, 1250, 1900])] as [NumericColumnRead, NumericColumnRead];
+  const view = (a: typeof north, b: typeof north, design?: 'independent' | 'shared' | 'separate') => {
+    const detection = detectDesign([dataBlock(a[0]), dataBlock(a[1])], [dataBlock(b[0]), dataBlock(b[1])]);
+    const v = computeComparison(a, b, design ?? detection.design!, detection, 0.95);
+    if (isCompareFailure(v)) throw new Error(v.error);
+    return v;
+  };
+
+  test('two groups on the same measures (case aside): no caution', () => {
+    expect(view(north, southSame).cautions).toEqual([]);
+  });
+
+  test('two groups on different measures are said to compare unlike things', () => {
+    expect(view(north, southOther).cautions).toEqual([
+      'Pair A (Mechanics (FTE) with Repairs per week) and pair B (Floor area m² with Rent per month) are not the same measures: a comparison of two groups asks whether one relationship differs between them, so here it compares unlike things. Pick the same two columns in each group.',
+    ]);
+  });
+
+  test('a design chosen against the addresses says what its test assumes', () => {
+    const c = view(north, southSame, 'separate').cautions;
+    expect(c).toHaveLength(1);
+    expect(c[0]).toMatch(/^The addresses suggest “two separate groups \(different rows\)”, but “same rows, four different columns” is chosen: its test assumes all four columns are measured on the same rows\./);
+  });
+});
