@@ -132,13 +132,14 @@ export function reportSheetCells(x: ColumnRef, y: ColumnRef, names: { x: string;
   const t = textEntry;
   return [
     row(t('Covary report')),
-    row(t('x'), t(`${names.x} (${formatBlock(x.block)})`)),
-    row(t('y'), t(`${names.y} (${formatBlock(y.block)})`)),
+    // The names alone in B2 and B3 (REPORT's reading names the columns from them), the cells beside them.
+    row(t('x'), t(names.x), t(formatBlock(x.block))),
+    row(t('y'), t(names.y), t(formatBlock(y.block))),
     row(t('Written'), t(writtenAt.toISOString().replace('T', ' ').slice(0, 16) + ' UTC')),
     ...REPORT_CAUTIONS.map((c, i) => row(t(i === 0 ? 'Cautions' : ''), t(c))),
     row(),
     row(t('Summary'), '', '', t('Assumption checks')),
-    row(formulaEntry(`=COVARY.REPORT(${args}, ${o.level}, ${literal(o.method)})`), '', '', formulaEntry(`=COVARY.CHECKS(${args}, ${o.alpha})`)),
+    row(formulaEntry(`=COVARY.REPORT(${args}, ${o.level}, ${literal(o.method)}, "", $B$2, $B$3)`), '', '', formulaEntry(`=COVARY.CHECKS(${args}, ${o.alpha})`)),
     ...Array.from({ length: CHECKS_ROWS }, () => row()),
     row('', '', '', t('Does the conclusion hold?')),
     row('', '', '', formulaEntry(`=COVARY.SENSITIVITY(${args}, ${o.level}, ${literal(o.method)})`)),

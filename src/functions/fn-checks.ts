@@ -11,7 +11,7 @@ import { assertWithinBudget } from '../stats/budget/call-budget';
 import { coefficientSymbol, listWords } from '../stats/verdict/advice';
 import { conclude } from '../stats/verdict/conclusion';
 import { formatCorrelation, formatNumber, formatP } from '../stats/format';
-import { CellRange } from '../sheet/cells';
+import { CellRange, headerText } from '../sheet/cells';
 import { pointNaming } from '../sheet/naming';
 import { CheckReport } from '../stats/checks/check-report';
 import { checksOf } from '../stats/checks/checked';
@@ -155,11 +155,13 @@ export function SENSITIVITY(x: any[][], y: any[][], level?: number, method?: str
  * @param [level] Confidence level of the interval, between 0 and 1; default 0.95 (95%).
  * @param [method] "pearson" (default, straight line), "spearman" (rank order), "kendall" (rank agreement); resisting outliers: "percentage_bend", "winsorized", "biweight" or "skipped" (sets outlying rows aside); for rating-scale items: "polychoric" (both columns) or "polyserial" (one column).
  * @param [interval] How the interval is made: "fisher" (default for Pearson, Spearman and Kendall), "bca" (bias-corrected and accelerated bootstrap) or "percentile" (percentile bootstrap, the default for the outlier-resisting coefficients).
+ * @param [x_name] A name for x in the reading, for example its header (default: the first cell of x when it is text, else "x").
+ * @param [y_name] A name for y in the reading (default: the first cell of y when it is text, else "y").
  * @param invocation Supplied by Excel: where x is, so that points are named by their sheet row.
  * @returns A two-column table: what is reported, and its value. A cell takes up to 600,000 rows (the panel any number).
  * @requiresParameterAddresses
  */
-export function REPORT(x: any[][], y: any[][], level?: number, method?: string, interval?: string, invocation?: CustomFunctions.Invocation): any[][] {
+export function REPORT(x: any[][], y: any[][], level?: number, method?: string, interval?: string, x_name?: string, y_name?: string, invocation?: CustomFunctions.Invocation): any[][] {
   return guard(() => {
     const lvl = optLevel(level);
     const m = optMethod(method);
@@ -167,7 +169,12 @@ export function REPORT(x: any[][], y: any[][], level?: number, method?: string, 
     const address = invocation?.parameterAddresses?.[0];
     const { pairs, prepared, report } = checkedPairs(x, y, REPORT_CHECK_ALPHA, address, (n) => assertWithinBudget('report', m, n, n));
     const names = pairNames(x, pairs, address);
-    const c = conclude(prepared, report, { method: m, level: lvl, name: names, interval: iv });
+    // The reading names the columns by their headers when the ranges start with one (as the report sheet's do).
+    const given = (v: unknown) => (typeof v === 'string' && v.trim() !== '' ? v.trim() : null);
+    const xn = given(x_name) ?? headerText(x?.[0]?.[0]) ?? 'x';
+    const yn = given(y_name) ?? headerText(y?.[0]?.[0]) ?? 'y';
+    const columns = { x: xn, y: yn };
+    const c = conclude(prepared, report, { method: m, level: lvl, name: names, interval: iv, columns });
     const result = c.correlation;
     const opts = (mm: Method) => ({ method: mm, tail: 'both' as const, level: lvl, interval: 'none' as const });
     const pearsonR = m === 'pearson' ? result.statistic : correlatePrepared(prepared, opts('pearson')).statistic;

@@ -228,6 +228,17 @@ describe('picking and writing', () => {
     const active = await page().locator('.wb-tab.active').textContent();
     expect(active).toMatch(/\S/);
     await expect(cell(page(), 'A1').textContent()).resolves.toMatch(/\S/);
+    // The reading names the columns, not "x" and "y".
+    const reading = await page().evaluate((sheet) => {
+      for (let r = 1; r <= 60; r++) {
+        if (window.covaryWorkbench!.value(`'${sheet}'!A${r}`) === 'Reading') return window.covaryWorkbench!.value(`'${sheet}'!B${r}`);
+      }
+      return null;
+    }, active!);
+    const label = (await testid(page(), 'main-pair-label').textContent())!;
+    const [, xName, yName] = /X: (.+?) \(.*Y: (.+?) \(/.exec(label)!;
+    expect(String(reading)).toContain(`${yName} tends to rise as ${xName} rises`);
+    expect(String(reading)).not.toMatch(/\by tends to|as x rises/);
     await screenshot(page(), 'workbench-panel-report-sheet');
   });
 });

@@ -226,8 +226,11 @@ export function recommendCoefficient(report: CheckReport, chosen: CorrelationRes
  * p-value is (the chance of data at least this extreme if there were no correlation) and is not (the chance that
  * there is none), and that a correlation does not by itself show cause.
  * @param significance the level below which p counts as evidence, normally 1 - the interval's level
+ * @param columns the columns' names (their headers) when known, so the sentence names them instead of x and y
  */
-export function plainReading(result: CorrelationResult, report: CheckReport | null, significance: number): string {
+export function plainReading(result: CorrelationResult, report: CheckReport | null, significance: number, columns?: { x: string; y: string }): string {
+  const xn = columns?.x ?? 'x';
+  const yn = columns?.y ?? 'y';
   const sym = coefficientSymbol(result);
   const est = result.statistic;
   const { word, rScale } = strengthOf(result);
@@ -247,8 +250,8 @@ export function plainReading(result: CorrelationResult, report: CheckReport | nu
       : '';
     return `${caveat} ${n} pairs the data show no clear relationship (${estText}; ${pMeaning})${range}.`;
   }
-  const direction = est > 0 ? 'y tends to rise as x rises' : 'y tends to fall as x rises';
-  return `${caveat} ${n} pairs, ${direction}: ${estText} is a ${word} correlation by ${STRENGTH_CONVENTION}, and ${pMeaning}, so chance alone is an unlikely explanation, though a correlation by itself does not show that x causes y.`;
+  const direction = est > 0 ? `${yn} tends to rise as ${xn} rises` : `${yn} tends to fall as ${xn} rises`;
+  return `${caveat} ${n} pairs, ${direction}: ${estText} is a ${word} correlation by ${STRENGTH_CONVENTION}, and ${pMeaning}, so chance alone is an unlikely explanation, though a correlation by itself does not show that ${xn} causes ${yn}.`;
 }
 
 /**

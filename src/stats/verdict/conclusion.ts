@@ -37,6 +37,8 @@ export interface ConclusionOptions {
   /** How the coefficient's interval is made (its default when omitted). */
   interval?: IntervalMethod;
   name: (i: number) => string;
+  /** The columns' names for the reading (their headers), when known; "x" and "y" otherwise. */
+  columns?: { x: string; y: string };
 }
 
 export function conclude(prepared: PreparedPairs, report: CheckReport, opts: ConclusionOptions): Conclusion {
@@ -76,5 +78,5 @@ export function conclude(prepared: PreparedPairs, report: CheckReport, opts: Con
       detectable = null;
     }
   }
-  return { correlation, recommendation, sensitivity: sens, equivalence, bayes, detectable, reading: plainReading(correlation, report, alpha) };
+  return { correlation, recommendation, sensitivity: sens, equivalence, bayes, detectable, reading: plainReading(correlation, report, alpha, opts.columns) };
 }

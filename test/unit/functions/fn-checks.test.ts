@@ -143,7 +143,7 @@ describe('REPORT', () => {
 
   test('recommendations follow the flags', () => {
     const rec = (k: number, method: string | null = null) => {
-      const m = reportMap(REPORT(col(set(k).x), col(set(k).y), NONE, method as string, NO_WORD, SHEET));
+      const m = reportMap(REPORT(col(set(k).x), col(set(k).y), NONE, method as string, NO_WORD, NO_WORD, NO_WORD, SHEET));
       return [m.get('Recommended coefficient'), String(m.get('Why'))];
     };
     // 11 clean rows: never "read as it stands" while most checks could not see.
@@ -218,4 +218,14 @@ describe('bad input', () => {
     expect(cellError(() => CHECKS(col(HW_X), col(HW_Y.slice(1)), NONE)).message).toMatch(/same number of cells/);
     expect(cellError(() => CHECKS([[1, 2], [3, 4]], col([1, 2]), NONE)).message).toMatch(/single column or a single row/);
   });
+});
+
+test('REPORT names the columns in its reading: given names, else headers in the first cells, else x and y', () => {
+  // Anscombe (1973) set 1 rises clearly, so the reading states a direction.
+  const x = [10, 8, 13, 9, 11, 14, 6, 4, 12, 7, 5];
+  const y = [8.04, 6.95, 7.58, 8.81, 8.33, 9.96, 7.24, 4.26, 10.84, 4.82, 5.68];
+  const reading = (t: unknown) => String((t as [string, unknown][]).find((r) => r[0] === 'Reading')![1]);
+  expect(reading(REPORT(x.map((v) => [v]), y.map((v) => [v])))).toMatch(/y tends to rise as x rises.*does not show that x causes y/);
+  expect(reading(REPORT([['Visits'], ...x.map((v) => [v])], [['Sales'], ...y.map((v) => [v])]))).toMatch(/Sales tends to rise as Visits rises.*does not show that Visits causes Sales/);
+  expect(reading(REPORT(x.map((v) => [v]), y.map((v) => [v]), undefined, undefined, undefined, 'Training hours', 'Sales per head'))).toMatch(/Sales per head tends to rise as Training hours rises/);
 });

@@ -59,11 +59,14 @@ describe('report sheet', () => {
     expect(new Set(rows.map((r) => r.length)).size).toBe(1);
     const formulas = rows.flat().filter(isFormulaEntry);
     expect(formulas).toEqual([
-      "=COVARY.REPORT('North branch'!$B$2:$B$49, 'North branch'!$C$2:$C$49, 0.95, \"pearson\")",
+      "=COVARY.REPORT('North branch'!$B$2:$B$49, 'North branch'!$C$2:$C$49, 0.95, \"pearson\", \"\", $B$2, $B$3)",
       "=COVARY.CHECKS('North branch'!$B$2:$B$49, 'North branch'!$C$2:$C$49, 0.05)",
       "=COVARY.SENSITIVITY('North branch'!$B$2:$B$49, 'North branch'!$C$2:$C$49, 0.95, \"pearson\")",
     ]);
     expect(shownText(rows[3][1])).toBe('2024-05-01 09:30 UTC');
+    // The names REPORT's reading uses sit alone in B2 and B3.
+    expect([shownText(rows[1][1]), shownText(rows[2][1])]).toEqual(['Visits', 'Sales']);
+    expect(shownText(rows[1][2])).toBe("'North branch'!B2:B49");
   });
   test('SENSITIVITY sits below the eight checks, clear of the CHECKS spill', () => {
     const rows = reportSheetCells(rangeRef('S!B2:B49'), rangeRef('S!C2:C49'), { x: 'Visits', y: 'Sales' }, { method: 'pearson', level: 0.95, alpha: 0.05 }, new Date(0));
