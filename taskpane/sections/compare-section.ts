@@ -10,7 +10,7 @@ import { CompareFailure, CompareView, isCompareFailure } from '../compare-view';
 import { Design, DESIGN_LABELS, DesignDetection } from '../design';
 import { el, fill, select } from '../dom';
 import { PANEL_TEST_IDS } from '../panel-api';
-import { chartBox, section, showMessage, tile, Tile } from '../widgets';
+import { ChartBox, chartBox, section, showMessage, tile, Tile } from '../widgets';
 
 /** The design the user asked for: the detected one, or a fixed one. */
 export type DesignChoice = 'auto' | Design;
@@ -25,6 +25,7 @@ export class CompareSection {
   private readonly results: HTMLElement;
   private readonly note: HTMLElement;
   private readonly cautions: HTMLElement;
+  private readonly chartBox: ChartBox;
   private readonly tiles: { r1: Tile; r2: Tile; diff: Tile; interval: Tile; p: Tile };
 
   constructor(picker: HTMLElement, design: DesignChoice, onDesign: (d: DesignChoice) => void) {
@@ -41,6 +42,7 @@ export class CompareSection {
     this.detected = el('div', { class: 'cv-hint', testid: PANEL_TEST_IDS.designDetected });
     this.message = el('div', { class: 'cv-message cv-hidden', attrs: { role: 'alert' } });
     const chart = chartBox(PANEL_TEST_IDS.compareChart, 'Both correlations and their difference, with intervals');
+    this.chartBox = chart;
     chart.root.classList.add('cv-chart-short');
     this.plot = new IntervalPlot(chart.canvas);
     this.tiles = {
@@ -109,6 +111,15 @@ export class CompareSection {
     tiles.interval.value.setAttribute('data-upper', String(r.interval.upper));
     tiles.p.value.textContent = formatPValue(r.pValue);
     tiles.p.value.setAttribute('data-value', String(r.pValue));
+    this.chartBox.describeData({
+      summary: `Pair A ${formatR(r.r1)} (${view.interval1.lower.toFixed(2)} to ${view.interval1.upper.toFixed(2)}), pair B ${formatR(r.r2)} (${view.interval2.lower.toFixed(2)} to ${view.interval2.upper.toFixed(2)}), difference ${formatR(r.statistic)} (${formatR(r.interval.lower)} to ${formatR(r.interval.upper)}), ${pct} intervals.`,
+      columns: ['', 'estimate', `${pct} lower`, `${pct} upper`],
+      rows: () => [
+        [`A: ${view.labels.a}`, r.r1, view.interval1.lower, view.interval1.upper],
+        [`B: ${view.labels.b}`, r.r2, view.interval2.lower, view.interval2.upper],
+        ['A − B', r.statistic, r.interval.lower, r.interval.upper],
+      ],
+    });
     fill(this.cautions, view.cautions.map((c) => el('li', { text: c })));
     this.cautions.classList.toggle('cv-hidden', view.cautions.length === 0);
     const crosses = r.interval.lower < 0 && r.interval.upper > 0;

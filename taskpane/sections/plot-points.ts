@@ -3,8 +3,9 @@
  * lines of each (its sheet row, values, residual and why it is flagged). Shared by the scatter and the residual
  * plots, so a point reads the same in every chart.
  */
-import { formatValue } from '../../src/stats/format';
+import { formatCount, formatValue } from '../../src/stats/format';
 import { PlotPoint } from '../charts';
+import type { ChartData } from '../widgets';
 import { FLAG_INFLUENTIAL, FLAG_OUTLIER, FLAG_SETS_SLOPE, RelationshipView } from '../relationship';
 
 /** Why a point is flagged, in words. */
@@ -47,4 +48,22 @@ export function markFrame(frame: HTMLElement, v: RelationshipView): void {
   for (let k = 0; k < d.rows.length; k++) if (d.flags[k]) flaggedDrawn.push(d.rows[k]);
   frame.setAttribute('data-drawn-count', String(d.rows.length));
   frame.setAttribute('data-flagged-rows', flaggedDrawn.join(','));
+}
+
+/**
+ * The numbers behind a point chart of the drawn sample, for its text alternative: one row per drawn point with its
+ * sheet row and whether it is flagged, and a summary of how many points stand for how many pairs.
+ */
+export function pointTable(v: RelationshipView, what: string, xName: string, yName: string, xs: ArrayLike<number>, ys: ArrayLike<number>): ChartData {
+  const d = v.drawn;
+  const m = d.rows.length;
+  let flagged = 0;
+  for (let k = 0; k < m; k++) if (d.flags[k]) flagged++;
+  const sample = m < v.n ? ` (${formatCount(m)} of the ${formatCount(v.n)} pairs drawn, every flagged one among them)` : '';
+  return {
+    summary: `${what}: ${formatCount(m)} points${sample}, ${formatCount(flagged)} flagged. The table "Numbers behind this chart" lists them.`,
+    // Against the sheet row, the row is the x value: one column for it, not two.
+    columns: xs === d.rows ? ['sheet row', yName, 'flagged'] : ['sheet row', xName, yName, 'flagged'],
+    rows: () => Array.from({ length: m }, (_, k) => (xs === d.rows ? [d.rows[k], ys[k], d.flags[k] ? 'yes' : ''] : [d.rows[k], xs[k], ys[k], d.flags[k] ? 'yes' : ''])),
+  };
 }

@@ -10,8 +10,8 @@ import { PointPlot } from '../charts';
 import { clear, el, fill, select } from '../dom';
 import { PANEL_TEST_IDS } from '../panel-api';
 import { RelationshipView } from '../relationship';
-import { chartBox, legend, section, showMessage, tile, Tile } from '../widgets';
-import { describer, markFrame, pointsOf } from './plot-points';
+import { ChartBox, chartBox, legend, section, showMessage, tile, Tile } from '../widgets';
+import { describer, markFrame, pointsOf, pointTable } from './plot-points';
 import { VerdictCard } from './verdict-card';
 
 const LEVEL_OPTIONS = [
@@ -31,6 +31,7 @@ export interface RelationshipSectionEvents {
 export class RelationshipSection {
   readonly root: HTMLElement;
   readonly scatter: PointPlot;
+  private readonly scatterBox: ChartBox;
   readonly scatterFrame: HTMLElement;
   private readonly methodSelect: HTMLSelectElement;
   private readonly levelSelect: HTMLSelectElement;
@@ -65,6 +66,7 @@ export class RelationshipSection {
     const scatter = chartBox(PANEL_TEST_IDS.scatter, 'Scatter with straight line and smooth');
     this.scatter = new PointPlot(scatter.canvas, (row) => on.pick(row));
     this.scatterFrame = scatter.frame;
+    this.scatterBox = scatter;
     this.reading = el('ul', { class: 'cv-reading', testid: PANEL_TEST_IDS.reading });
     this.advice = el('div', { class: 'cv-advice', testid: PANEL_TEST_IDS.advice });
     this.flags = el('div', { class: 'cv-flags', testid: PANEL_TEST_IDS.flags });
@@ -185,6 +187,7 @@ export class RelationshipSection {
       describe: describer(v),
     });
     markFrame(this.scatterFrame, v);
+    this.scatterBox.describeData(pointTable(v, `Scatter of ${v.yHeader} against ${v.xHeader}, with the straight line and a LOWESS smooth`, v.xHeader, v.yHeader, d.x, d.y));
   }
 
   private renderAdvice(v: RelationshipView): void {

@@ -6,8 +6,8 @@ import { PointPlot } from '../charts';
 import { el, fill } from '../dom';
 import { PANEL_TEST_IDS } from '../panel-api';
 import { RelationshipView } from '../relationship';
-import { chartBox, section } from '../widgets';
-import { describer, markFrame, pointsOf } from './plot-points';
+import { ChartBox, chartBox, section } from '../widgets';
+import { describer, markFrame, pointsOf, pointTable } from './plot-points';
 
 export type ResidualChartName = 'residuals' | 'qq' | 'order';
 
@@ -15,6 +15,7 @@ export class ResidualsSection {
   readonly root: HTMLElement;
   readonly plots: Record<ResidualChartName, PointPlot>;
   private readonly frames: Record<ResidualChartName, HTMLElement>;
+  private readonly boxes: Record<ResidualChartName, ChartBox>;
   private readonly waiting: HTMLElement;
   private readonly results: HTMLElement;
 
@@ -26,6 +27,7 @@ export class ResidualsSection {
     const order = chartBox(PANEL_TEST_IDS.order, 'Residuals in sheet row order', 'Runs of same-sign residuals suggest neighbouring rows are alike.');
     this.plots = { residuals: new PointPlot(residuals.canvas, pick), qq: new PointPlot(qq.canvas, pick), order: new PointPlot(order.canvas, pick) };
     this.frames = { residuals: residuals.frame, qq: qq.frame, order: order.frame };
+    this.boxes = { residuals, qq, order };
     this.waiting = el('p', { class: 'cv-hint', text: 'The residual plots appear once a pair of columns gives a result.' });
     this.results = el('div', { class: 'cv-results cv-hidden' }, [
       el('p', { class: 'cv-hint', text: 'Hover a point to see its sheet row; click it to select that row.' }),
@@ -82,6 +84,9 @@ export class ResidualsSection {
       describe,
     });
     for (const name of Object.keys(this.frames) as ResidualChartName[]) markFrame(this.frames[name], v);
+    this.boxes.residuals.describeData(pointTable(v, 'Residuals against fitted values', `fitted ${v.yHeader}`, 'residual', d.fitted, d.residuals));
+    this.boxes.qq.describeData(pointTable(v, 'Normal Q-Q plot of the residuals', 'normal quantile', 'residual', d.normalScore, d.residuals));
+    this.boxes.order.describeData(pointTable(v, 'Residuals in sheet row order', 'sheet row', 'residual', d.rows, d.residuals));
   }
 
   destroy(): void {

@@ -157,6 +157,34 @@ describe('compare', () => {
   });
 });
 
+describe('pictures that leave the pane, and their numbers in words', () => {
+  test('the scatter is described in words, and its numbers open as a table from the keyboard', async () => {
+    const n = (await page().evaluate(() => window.__covaryPanel!.summary()))!.n;
+    await expect(testid('chart-scatter-summary').textContent()).resolves.toMatch(new RegExp(`^Scatter of .+ against .+: ${n} points, \\d+ flagged\\.`));
+    await expect(testid('chart-scatter').getAttribute('aria-describedby')).resolves.toBe('chart-scatter-summary');
+    const fold = page().locator('figure:has([data-testid="chart-scatter"]) details > summary');
+    await fold.focus();
+    await page().keyboard.press('Enter');
+    const rows = page().locator('[data-testid="chart-scatter-table"] tbody tr');
+    await expect(rows.count()).resolves.toBe(n);
+    // Row 5 of the sheet, as the grid holds it (B5 was set to 99 above).
+    const row5 = await page().locator('[data-testid="chart-scatter-table"] tbody tr', { hasText: /^5/ }).first().locator('td').allTextContents();
+    expect(row5.slice(0, 3)).toEqual(['5', '99', String(await cellValue(page(), 'North!C5'))]);
+    await page().locator('figure:has([data-testid="chart-scatter"])').scrollIntoViewIfNeeded();
+    await screenshot(page(), 'panel-chart-numbers');
+  });
+
+  test('"Save PNG" gives a PNG picture of the chart', async () => {
+    const [download] = await Promise.all([page().waitForEvent('download'), testid('chart-scatter-save').click()]);
+    expect(download.suggestedFilename()).toBe('covary-chart-scatter.png');
+    const file = await download.path();
+    const bytes = require('fs').readFileSync(file) as Buffer;
+    // The PNG signature (ISO/IEC 15948, section 5.2), and a picture larger than an empty canvas.
+    expect([...bytes.subarray(0, 8)]).toEqual([137, 80, 78, 71, 13, 10, 26, 10]);
+    expect(bytes.length).toBeGreaterThan(5000);
+  });
+});
+
 describe('accessibility of the panel (WCAG 2.1 AA, checked by axe-core)', () => {
   test('the source toggle shows its focus ring when reached by keyboard, not clipped by its group', async () => {
     await testid('main-mode-selection').focus();
