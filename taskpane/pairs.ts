@@ -68,14 +68,19 @@ export interface PairedRows {
   skipped: number;
   xHeader: string;
   yHeader: string;
+  /** Sheet rows of the first SKIPPED_LISTED skipped rows, in order (the panel lists them). */
+  skippedRows: Int32Array;
 }
+
+/** How many skipped rows the panel names (the count is always given in full). */
+export const SKIPPED_LISTED = 20;
 
 /**
  * Builds a PairedRows. Every PairedRows is made here, so all have one object shape: the analysis, compiled for
  * speed on the first ones it sees (the panel's warm-up rounds), then meets no other shape and is not recompiled.
  */
-export function pairedRows(x: Float64Array, y: Float64Array, rows: Int32Array, sheet: string, total: number, skipped: number, xHeader: string, yHeader: string): PairedRows {
-  return { x, y, rows, sheet, total, skipped, xHeader, yHeader };
+export function pairedRows(x: Float64Array, y: Float64Array, rows: Int32Array, sheet: string, total: number, skipped: number, xHeader: string, yHeader: string, skippedRows: Int32Array = new Int32Array(0)): PairedRows {
+  return { x, y, rows, sheet, total, skipped, xHeader, yHeader, skippedRows };
 }
 
 /**
@@ -108,7 +113,13 @@ export function pairColumns(xc: NumericColumnRead, yc: NumericColumnRead): Paire
   const [x, y] = kept.columns;
   const rows = new Int32Array(x.length);
   for (let j = 0; j < rows.length; j++) rows[j] = xc.firstRow + (kept.index ? kept.index[j] : j);
-  return pairedRows(x, y, rows, xc.sheet, total, kept.skipped, xc.header, yc.header);
+  const skippedRows = new Int32Array(Math.min(SKIPPED_LISTED, kept.skipped));
+  for (let i = 0, k = 0, j = 0; i < total && k < skippedRows.length; i++) {
+    // kept.index lists the kept positions in order; a position not among them was skipped.
+    if (kept.index && j < kept.index.length && kept.index[j] === i) j++;
+    else if (kept.index) skippedRows[k++] = xc.firstRow + i;
+  }
+  return pairedRows(x, y, rows, xc.sheet, total, kept.skipped, xc.header, yc.header, skippedRows);
 }
 
 /**

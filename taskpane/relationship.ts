@@ -66,6 +66,8 @@ export interface RelationshipView {
   total: number;
   n: number;
   skipped: number;
+  /** Sheet rows of the first skipped rows (see PairedRows.skippedRows). */
+  skippedRows: number[];
   correlation: CorrelationResult;
   line: { slope: number; intercept: number };
   checks: CheckRow[];
@@ -235,6 +237,7 @@ export function analyseRelationship(p: PairedRows, opts: RelationshipOptions, me
       total: p.total,
       n,
       skipped: p.skipped,
+      skippedRows: Array.from(p.skippedRows ?? []),
       correlation,
       line: { slope: report.line.slope, intercept: report.line.intercept },
       checks: report.checks,

@@ -129,6 +129,10 @@ export class RelationshipSection {
     tiles.p.value.setAttribute('data-value', String(c.pValue));
     tiles.pairs.value.textContent = v.skipped > 0 ? `${formatCount(v.n)} (${formatCount(v.skipped)} skipped)` : formatCount(v.n);
     tiles.pairs.value.setAttribute('data-value', String(v.n));
+    // Which rows were left out, so they can be found and mended (blank, text or TRUE/FALSE in either column).
+    tiles.pairs.sub.textContent = v.skipped > 0
+      ? `Skipped (a cell not a number): ${v.skipped === 1 ? 'row' : 'rows'} ${v.skippedRows.join(', ')}${v.skipped > v.skippedRows.length ? ` and ${formatCount(v.skipped - v.skippedRows.length)} more` : ''}`
+      : '';
 
     this.verdict.render(v.verdict, v.n, c.interval.level);
     fill(this.reading, v.reading.map((t) => el('li', { text: t })));

@@ -157,6 +157,29 @@ describe('compare', () => {
   });
 });
 
+describe('skipped rows', () => {
+  test('are listed by sheet row under the pairs used, the rows the grid holds no number in', async () => {
+    await afterRedraw(async () => {
+      await testid('main-x-column').selectOption({ label: 'Households nearby (k)' });
+      await testid('main-y-column').selectOption({ label: 'Revenue per week' });
+    });
+    // The rows of North!J2:K49 where either cell is not a number, found from the grid itself.
+    const blank: number[] = [];
+    for (let r = 2; r <= 49; r++) {
+      const j = await cellValue(page(), `North!J${r}`);
+      const k = await cellValue(page(), `North!K${r}`);
+      if (typeof j !== 'number' || typeof k !== 'number') blank.push(r);
+    }
+    expect(blank.length).toBeGreaterThan(0);
+    const sub = await page().locator('.cv-tile:has([data-testid="pairs"]) .cv-tile-sub').textContent();
+    expect(sub).toBe(`Skipped (a cell not a number): ${blank.length === 1 ? 'row' : 'rows'} ${blank.join(', ')}`);
+    await afterRedraw(async () => {
+      await testid('main-x-column').selectOption({ label: 'Mechanics (FTE)' });
+      await testid('main-y-column').selectOption({ label: 'Repairs per week' });
+    });
+  });
+});
+
 describe('pictures that leave the pane, and their numbers in words', () => {
   test('the scatter is described in words, and its numbers open as a table from the keyboard', async () => {
     const n = (await page().evaluate(() => window.__covaryPanel!.summary()))!.n;

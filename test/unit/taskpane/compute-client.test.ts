@@ -36,7 +36,7 @@ class InProcessWorker {
 function pairs(n: number): PairedRows {
   const x = Float64Array.from({ length: n }, (_, i) => i % 17);
   const y = Float64Array.from({ length: n }, (_, i) => (i % 17) * 2 + (i % 5));
-  return { x, y, rows: Int32Array.from({ length: n }, (_, i) => i + 2), sheet: 'S', total: n, skipped: 0, xHeader: 'x', yHeader: 'y' };
+  return { x, y, rows: Int32Array.from({ length: n }, (_, i) => i + 2), sheet: 'S', total: n, skipped: 0, xHeader: 'x', yHeader: 'y', skippedRows: new Int32Array(0) };
 }
 
 const opts = { method: 'pearson' as const, level: 0.95, alpha: 0.05, drawLimit: 500 };

@@ -93,3 +93,17 @@ test('a column with no numbers at all is named, with what to do', () => {
   const y = column('S', 1, 2, ['Mechanics (FTE)', 1, 2, 3]);
   expect(() => pairColumns(x, y)).toThrow('“Workshop” holds no numbers (only text or blanks): pick a column of numbers.');
 });
+
+test('the skipped rows are named by their sheet rows, the first twenty of them', () => {
+  const x = column('S', 1, 1, ['x', 1, '', 3, 4, 'n/a', 6]);
+  const y = column('S', 1, 2, ['y', 1, 2, 3, null, 5, 6]);
+  const p = pairColumns(x, y);
+  expect(p.skipped).toBe(3);
+  // Data from sheet row 2: rows 3 (blank x), 5 (blank y) and 6 (text x).
+  expect(Array.from(p.skippedRows)).toEqual([3, 5, 6]);
+  const many = column('S', 1, 1, ['x', ...Array.from({ length: 60 }, (_, i) => (i % 2 ? '' : i))]);
+  const full = column('S', 1, 2, ['y', ...Array.from({ length: 60 }, (_, i) => i)]);
+  const q = pairColumns(many, full);
+  expect(q.skipped).toBe(30);
+  expect(Array.from(q.skippedRows)).toEqual(Array.from({ length: 20 }, (_, k) => 3 + 2 * k));
+});

@@ -26,6 +26,7 @@ function pairs(x: number[], y: number[], firstRow = 2): PairedRows {
     skipped: 0,
     xHeader: 'x',
     yHeader: 'y',
+    skippedRows: new Int32Array(0),
   };
 }
 
