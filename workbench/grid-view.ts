@@ -690,6 +690,11 @@ export class GridView {
       } else if (e.key === 'Delete' || e.key === 'Backspace') {
         e.preventDefault();
         this.clearSelection();
+      } else if ((e.ctrlKey || e.metaKey) && !e.altKey && (e.key === 'z' || e.key === 'Z' || e.key === 'y' || e.key === 'Y')) {
+        // Ctrl+Z undoes, Ctrl+Y or Ctrl+Shift+Z redoes, as in a spreadsheet.
+        e.preventDefault();
+        const redo = e.key === 'y' || e.key === 'Y' || e.shiftKey;
+        void (redo ? this.editor.redo() : this.editor.undo());
       } else if (e.key.length === 1 && !e.ctrlKey && !e.metaKey && !e.altKey) {
         e.preventDefault();
         this.setSelection(this.anchor, this.anchor);

@@ -151,6 +151,38 @@ export class WorkbookModel implements CellSource {
    * Clears every entry inside an area, visiting only the cells that hold something (clearing A1:Z1048576 costs
    * what the sheet holds, not 27 million cells). Returns whether anything changed.
    */
+  /**
+   * The entry of a cell as it could be typed again to give the same cell: a formula's text, a number or TRUE/FALSE
+   * as such, text behind an apostrophe (so "42" typed as text stays text), null when empty. For undo.
+   */
+  typedEntry(sheetName: string, row: number, column: number): string | number | boolean | null {
+    const s = this.sheet(sheetName);
+    if (!s) return null;
+    const key = cellKey(row, column);
+    const f = s.formulas.get(key);
+    if (f) return f.text;
+    const v = s.values.get(key);
+    if (v === undefined || v === null) return null;
+    if (typeof v === 'string') return `'${v}`;
+    if (typeof v === 'number' || typeof v === 'boolean') return v;
+    return null;
+  }
+
+  /** The cells holding something inside an area (visiting stored cells only, however large the area). */
+  storedIn(area: Area): { row: number; column: number }[] {
+    const s = this.sheet(area.sheet);
+    if (!s) return [];
+    const out: { row: number; column: number }[] = [];
+    const seen = new Set<string>();
+    for (const key of [...s.values.keys(), ...s.formulas.keys()]) {
+      if (seen.has(key)) continue;
+      seen.add(key);
+      const [r, c] = splitKey(key);
+      if (r >= area.top && r <= area.bottom && c >= area.left && c <= area.right) out.push({ row: r, column: c });
+    }
+    return out;
+  }
+
   clearArea(area: Area): boolean {
     const s = this.sheet(area.sheet);
     if (!s) return false;

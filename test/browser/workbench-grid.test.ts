@@ -242,6 +242,27 @@ describe('entries as Excel reads them', () => {
   });
 });
 
+describe('undo', () => {
+  test('Ctrl+Z puts back a typed cell and the formulas follow; Ctrl+Y does it again', async () => {
+    const before = await cellValue(page(), 'North!C7');
+    const coefBefore = await cellValue(page(), 'North!N2');
+    await typeInto(page(), 'North', 'C7', '500');
+    expect(await cellValue(page(), 'North!C7')).toBe(500);
+    expect(await cellValue(page(), 'North!N2')).not.toBe(coefBefore);
+    await page().getByTestId('grid').focus();
+    await page().keyboard.press('Control+z');
+    await settle(page());
+    expect(await cellValue(page(), 'North!C7')).toBe(before);
+    expect(await cellValue(page(), 'North!N2')).toBe(coefBefore);
+    await page().keyboard.press('Control+y');
+    await settle(page());
+    expect(await cellValue(page(), 'North!C7')).toBe(500);
+    await page().keyboard.press('Control+z');
+    await settle(page());
+    expect(await cellValue(page(), 'North!C7')).toBe(before);
+  });
+});
+
 describe('the keyboard reaches every region', () => {
   const focused = () =>
     page().evaluate(() => {

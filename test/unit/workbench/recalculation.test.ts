@@ -164,3 +164,44 @@ describe('deeply nested formulas', () => {
     expect(message).toBe('functions are nested more than 64 deep (the most a spreadsheet formula allows); split the formula into cells');
   });
 });
+
+describe('undo and redo', () => {
+  test('typing, Delete and a block write are undone in order and redone, formulas following each step', async () => {
+    const { model, editor } = setup();
+    model.setEntry('S', 2, 5, '=F(B5)');
+    await editor.recalcAll();
+    expect(model.value('S', 2, 5)).toBe(6); // B5 holds 5
+    await editor.write('S', 5, 2, [[99]]);
+    expect(model.value('S', 2, 5)).toBe(100);
+    await editor.write('S', 1, 7, [["'42", 'TRUE'], ['=F(B5)', null]]);
+    await editor.clear({ sheet: 'S', top: 1, bottom: 1048576, left: 2, right: 2 });
+    expect(model.value('S', 5, 2)).toBeNull();
+    expect(model.value('S', 2, 5)).toBe(1); // F of an empty cell
+    // Undo the Delete: column B comes back, and the formula with it.
+    await expect(editor.undo()).resolves.toBe(true);
+    expect(model.value('S', 5, 2)).toBe(99);
+    expect(model.value('S', 49, 2)).toBe(49);
+    expect(model.value('S', 2, 5)).toBe(100);
+    // Undo the block: text stays text, and the cells it filled are empty again.
+    expect(model.value('S', 1, 7)).toBe('42');
+    await editor.undo();
+    expect(model.value('S', 1, 7)).toBeNull();
+    expect(model.value('S', 2, 7)).toBeNull();
+    // Undo the typing: B5 is 5 again.
+    await editor.undo();
+    expect(model.value('S', 5, 2)).toBe(5);
+    expect(model.value('S', 2, 5)).toBe(6);
+    await expect(editor.undo()).resolves.toBe(false);
+    // Redo the typing and the block.
+    await editor.redo();
+    expect(model.value('S', 5, 2)).toBe(99);
+    await editor.redo();
+    expect(model.value('S', 1, 7)).toBe('42');
+    expect(model.value('S', 1, 8)).toBe(true);
+    expect(model.value('S', 2, 7)).toBe(100);
+    // A new change after undoing clears what could be redone.
+    await editor.undo();
+    await editor.write('S', 3, 2, [[7]]);
+    await expect(editor.redo()).resolves.toBe(false);
+  });
+});
