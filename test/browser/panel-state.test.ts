@@ -208,6 +208,35 @@ describe('pictures that leave the pane, and their numbers in words', () => {
   });
 });
 
+describe('the panel at task-pane widths', () => {
+  test.each([320, 1000])('at %i px nothing runs off the side, and every section is drawn', async (width) => {
+    await page().evaluate((w) => {
+      const main = document.querySelector('.wb-main') as HTMLElement;
+      main.style.gridTemplateColumns = `minmax(0, 1fr) ${w}px`;
+    }, width);
+    await panelIdle(page());
+    await page().evaluate(() => new Promise((r) => requestAnimationFrame(() => requestAnimationFrame(r))));
+    const overflow = await page().evaluate(() => {
+      const root = document.querySelector('[data-testid="panel-root"]') as HTMLElement;
+      const out: string[] = [];
+      const limit = root.getBoundingClientRect().right + 1;
+      root.querySelectorAll('*').forEach((e) => {
+        const r = (e as HTMLElement).getBoundingClientRect();
+        if (r.width > 0 && r.right > limit && !(e as HTMLElement).closest('.cv-chart-table')) out.push(`${(e as HTMLElement).className || e.tagName}`);
+      });
+      return { width: root.clientWidth, out: [...new Set(out)].slice(0, 10) };
+    });
+    expect(overflow.width).toBeLessThanOrEqual(width);
+    expect(overflow.out).toEqual([]);
+    for (const id of ['section-relationship', 'section-residuals', 'section-compare']) {
+      const el = page().locator(`[data-testid="${id}"]`);
+      await el.scrollIntoViewIfNeeded();
+      const shot = await el.screenshot({ path: require('path').join(__dirname, '../../test-artifacts', `panel-${id}-${width}px.png`) });
+      expect(shot.length).toBeGreaterThan(3000);
+    }
+  });
+});
+
 describe('accessibility of the panel (WCAG 2.1 AA, checked by axe-core)', () => {
   test('the source toggle shows its focus ring when reached by keyboard, not clipped by its group', async () => {
     await testid('main-mode-selection').focus();
