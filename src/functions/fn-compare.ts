@@ -117,7 +117,7 @@ export function DIFF_REPORTED(r1: number, n1: number, r2: number, n2: number, le
  * @customfunction PARTIAL
  * @param x First column (or row) of numbers.
  * @param y Second column (or row) of numbers, the same size as x.
- * @param controls One or more columns to hold fixed, side by side, with exactly as many rows as x (if x is a row: one or more rows as long as x).
+ * @param controls One or more columns to hold fixed, side by side, with exactly as many rows as x (if x is a row: one or more rows as long as x). A cell takes up to 650,000 rows with three controls, any number with one.
  * @param [level] Confidence level between 0 and 1, default 0.95 (95%).
  * @param [tail] "both" (default: any correlation), "positive" (only a positive one counts) or "negative".
  * @returns {any[][]} One row of four cells: the partial correlation, the lower and upper ends of its confidence interval, and the p-value. Rows missing a number in x, y or any control are skipped.
@@ -126,6 +126,8 @@ export function PARTIAL(x: any[][], y: any[][], controls: any[][], level?: numbe
   return guard(() => {
     const opts = options(level, tail);
     const data = readWithControls(x, y, controls);
+    const columns = 2 + data.controls.length;
+    assertWithinBudget('partial', 'pearson', columns * data.x.length, data.x.length);
     const res = partialCorrelation(data.x, data.y, data.controls, opts);
     return [[res.statistic, res.interval.lower, res.interval.upper, res.pValue]];
   });

@@ -8,7 +8,7 @@
  * The costs are microseconds per row of a cold call on host arrays built afresh (what Excel passes), slowest
  * option, measured at 1,000,000 rows on the two-core bench machine by test/unit/properties/support/
  * time-budget-child.js (docs/performance.md keeps the figures): the rank and robust comparisons 1.6-2.4 s for
- * two coefficients, SENSITIVITY 1.5 s, REPORT 1.4 s. Most of it is the work itself (sorts, selections,
+ * two coefficients, SENSITIVITY 1.5 s, REPORT 1.4 s, PARTIAL with three controls 0.6-1.3 s. Most of it is the work itself (sorts, selections,
  * resamples); a fifth to a third is the full garbage collections that the host's million one-cell arrays make
  * expensive. Every other function answers within the budget at 1,000,000 rows and is not listed.
  */
@@ -18,15 +18,18 @@ export const CALL_BUDGET_MS = 1000;
 /** The share of the budget a prediction may use: the rest covers a slower machine or a busy moment. */
 const MARGIN = 0.85;
 
-export type BudgetedCall = 'comparison' | 'sensitivity' | 'report';
+export type BudgetedCall = 'comparison' | 'sensitivity' | 'report' | 'partial';
 
 /** Microseconds per row and coefficient for a comparison by a rank or robust coefficient (Pearson is far below). */
 const COMPARISON_US = 1.2;
 const SENSITIVITY_US = 1.5;
 const REPORT_US = 1.4;
+/** Per row and column read (x, y and each control): 0.6-1.3 s for five columns at 1,000,000 rows, first call. */
+const PARTIAL_US = 0.26;
 
 function usPerRow(call: BudgetedCall, method: Method): number {
   if (call === 'comparison') return method === 'pearson' ? 0 : COMPARISON_US;
+  if (call === 'partial') return PARTIAL_US;
   return call === 'sensitivity' ? SENSITIVITY_US : REPORT_US;
 }
 
@@ -56,13 +59,17 @@ export function assertWithinBudget(call: BudgetedCall, method: Method, rows: num
   const what =
     call === 'comparison'
       ? `comparing two ${METHOD_LABELS[method].name} correlations`
-      : call === 'sensitivity'
+      : call === 'partial'
+        ? `a partial correlation with ${Math.round(perShown) - 2} control column${Math.round(perShown) - 2 === 1 ? '' : 's'}`
+        : call === 'sensitivity'
         ? 'the sensitivity table (every alternative coefficient, with and without the influential and flagged rows)'
         : 'the full report (the checks, the alternatives and the verdict)';
   const instead =
     call === 'comparison'
       ? 'compare by "pearson" (fast at any length)'
-      : 'use COEF, INTERVAL and CHECKS, which answer at this length';
+      : call === 'partial'
+        ? 'fewer control columns'
+        : 'use COEF, INTERVAL and CHECKS, which answer at this length';
   throw new StatsInputError(
     'too-large',
     `${what} on ${fmt(shownRows)} rows would take about ${seconds} s, more than a cell function may take ` +

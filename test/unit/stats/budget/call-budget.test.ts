@@ -57,3 +57,11 @@ test('the cell functions refuse before the work, and a Pearson comparison of the
   expect(row[0][0]).toBeGreaterThan(0.5);
   expect(() => REPORT(column(700000, (i) => i % 97), column(700000, (i) => (i * 31) % 89))).toThrow(/full report .* on 700,000 rows .* up to 600,000 rows fit/);
 });
+
+test('a partial correlation counts every column it reads: three controls fit 650,000 rows, one control any sheet', () => {
+  expect(() => assertWithinBudget('partial', 'pearson', 5 * 650000, 650000)).not.toThrow();
+  expect(() => assertWithinBudget('partial', 'pearson', 5 * 1_000_000, 1_000_000)).toThrow(
+    /^a partial correlation with 3 control columns on 1,000,000 rows would take about 1\.3 s, .* up to 650,000 rows fit\. Use a shorter range \(a random sample of the rows\), fewer control columns, or the Covary panel/,
+  );
+  expect(() => assertWithinBudget('partial', 'pearson', 3 * 1_048_576, 1_048_576)).not.toThrow();
+});
