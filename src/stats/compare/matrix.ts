@@ -58,7 +58,8 @@ export interface CorrelationMatrix {
  */
 export const MATRIX_LIMITS = {
   maxColumns: 200,
-  budgetMs: 1000,
+  // 85% of a cell call's 1 s, as for the other costly calls (src/stats/budget/call-budget.ts).
+  budgetMs: 850,
 };
 
 /** Predicted microseconds for one pair over `rows` rows. */
@@ -80,10 +81,10 @@ function pairMicroseconds(kind: CostKind, rows: number): number {
 /**
  * Per column and row: reading a cell the host passed as a fresh one-cell array (with the collections its
  * garbage costs), and ranking a gapless column once for Spearman. Measured on a cold call over fresh host arrays
- * at 1,000,000 rows on the two-core bench machine (4 columns: Pearson 0.63-0.89 s, Spearman 1.0-1.1 s; see
+ * at 1,000,000 rows on the two-core bench machine (4 columns: Pearson 0.63-0.99 s, Spearman 1.0-1.1 s; see
  * docs/performance.md).
  */
-const READ_US_PER_CELL = 0.15;
+const READ_US_PER_CELL = 0.2;
 const RANK_US_PER_CELL = 0.1;
 
 /**
