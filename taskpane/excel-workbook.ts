@@ -23,7 +23,7 @@ import { blocksIntersect, CellBlock, formatBlock, MAX_ROWS, parseAddress } from 
 import { headerText } from '../src/sheet/cells';
 import { WEB_FUNCTION_ARGUMENT_BYTES } from './host-limits';
 import { ReadCancelled } from './workbook';
-import type { ColumnSource, RangeRead, ReadOptions, TableInfo, Workbook } from './workbook';
+import type { ColumnSource, RangeRead, ReadOptions, ReportChartSpec, TableInfo, Workbook } from './workbook';
 
 /** Excel on the web's limits per request (see the note at the top). */
 export const WEB_REQUEST_LIMITS = { bytes: 5 * 1024 * 1024, cells: 5_000_000 };
@@ -306,6 +306,34 @@ export class ExcelWorkbook implements Workbook {
         }).catch(() => undefined); // the handler may already be gone (add-in reloaded): nothing to undo
       }
     };
+  }
+
+  /**
+   * A native XY scatter of spec.y against spec.x, bound to the data cells (so it follows edits), with Excel's
+   * linear trendline when asked, titled axes and no legend (one series). Enum values are passed as their strings
+   * ("XYScatter", "Columns", "Linear"), which Office.js accepts (ExcelApi 1.7 for setXAxisValues and trendlines).
+   */
+  async addChart(sheetName: string, spec: ReportChartSpec): Promise<void> {
+    const xb = parseAddress(spec.x);
+    const yb = parseAddress(spec.y);
+    const at = parseAddress(spec.at, sheetName);
+    if (!xb || xb.length !== 1 || !yb || yb.length !== 1 || !at || at.length !== 1) throw new Error('a chart needs one block for x, one for y and a cell to sit on');
+    await Excel.run(async (context) => {
+      const book = context.workbook.worksheets;
+      const sheet = book.getItem(sheetName);
+      const rangeOf = (b: CellBlock) => (b.sheet ? book.getItem(b.sheet) : book.getActiveWorksheet()).getRange(localReference(b));
+      const chart = sheet.charts.add('XYScatter', rangeOf(yb[0]), 'Columns');
+      chart.title.text = spec.title;
+      chart.legend.visible = false;
+      const series = chart.series.getItemAt(0);
+      series.name = spec.yTitle;
+      series.setXAxisValues(rangeOf(xb[0]));
+      if (spec.trendline) series.trendlines.add('Linear');
+      chart.axes.categoryAxis.title.text = spec.xTitle;
+      chart.axes.valueAxis.title.text = spec.yTitle;
+      chart.setPosition(localReference(at[0]));
+      await context.sync();
+    });
   }
 
   async selectRange(address: string): Promise<void> {

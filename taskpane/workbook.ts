@@ -77,6 +77,20 @@ export class ReadCancelled extends Error {
   }
 }
 
+/** A native chart for the report sheet: y against x from the data cells, so it stays live with them. */
+export interface ReportChartSpec {
+  title: string;
+  /** The data cells of x and y (same length), with their sheet, e.g. "North!B2:B49". */
+  x: string;
+  y: string;
+  xTitle: string;
+  yTitle: string;
+  /** The cell the chart's top-left corner sits on, on the report sheet, e.g. "F2". */
+  at: string;
+  /** Adds the least-squares straight line (Excel's linear trendline). */
+  trendline: boolean;
+}
+
 export interface Workbook {
   /** Address of the current selection (may span several columns). */
   getSelection(): Promise<string>;
@@ -101,6 +115,8 @@ export interface Workbook {
   /** Optional: the bytes of arguments the host passes a cell function per call, or null when it sets no known
    *  limit (host-limits.ts). */
   functionArgumentLimit?(): number | null;
+  /** Optional: adds a native chart to a sheet (hosts that draw charts; the workbench does not). */
+  addChart?(sheet: string, spec: ReportChartSpec): Promise<void>;
   /** Adds a new sheet (a unique name derived from `name`) holding the given cells; returns its name. */
   addSheet(name: string, cells: (string | number)[][]): Promise<string>;
 }

@@ -12,6 +12,9 @@ import { dataBlock } from './pairs';
 import { allBlank, ColumnRef, formulaBlock, FormulaOptions, formulaPlaces, reportSheetCells, topLeftOf } from './sheet-output';
 import type { NumericColumnRead, Workbook } from './workbook';
 
+/** Past this many rows the report gets no native chart (the points would bury the picture and slow the workbook). */
+const CHART_ROWS = 50000;
+
 /** What the buttons write about: the pair as last read, and the options in force. */
 export interface WriteSubject {
   reads: [NumericColumnRead, NumericColumnRead];
@@ -88,9 +91,34 @@ export function writeActions(wb: Workbook, subject: () => WriteSubject | null): 
     try {
       const cells = reportSheetCells(xr, yr, { x: s.reads[0].header, y: s.reads[1].header }, s.options, new Date());
       const name = await wb.addSheet('Covary report', cells);
-      status.textContent = `Report written to the sheet "${name}".`;
+      const chart = await addScatter(name, s, xr, yr);
+      status.textContent = `Report written to the sheet "${name}"${chart}.`;
     } catch (e) {
       status.textContent = `Could not write the report sheet: ${e instanceof Error ? e.message : String(e)}`;
+    }
+  }
+
+  /**
+   * The report's native chart, bound to the data cells so it stays live: y against x with Excel's linear
+   * trendline, beside the tables (column M clears CHECKS' spill). Returns what to add to the status line.
+   */
+  async function addScatter(sheet: string, s: WriteSubject, xr: ColumnRef, yr: ColumnRef): Promise<string> {
+    if (!wb.addChart) return '';
+    const rows = xr.block.lastRow - xr.block.firstRow + 1;
+    if (rows > CHART_ROWS) return ` (no chart: ${rows.toLocaleString('en-US')} rows is past the ${CHART_ROWS.toLocaleString('en-US')} a chart shows well; the panel draws a sample)`;
+    try {
+      await wb.addChart(sheet, {
+        title: `${s.reads[1].header} against ${s.reads[0].header}`,
+        x: formatBlock(xr.block),
+        y: formatBlock(yr.block),
+        xTitle: s.reads[0].header,
+        yTitle: s.reads[1].header,
+        at: 'M2',
+        trendline: true,
+      });
+      return ', with a live scatter chart and its straight line';
+    } catch (e) {
+      return ` (the chart could not be added: ${e instanceof Error ? e.message : String(e)})`;
     }
   }
 

@@ -3,9 +3,11 @@
  * "Write report sheet"). Checked statically on every panel source (taskpane/ and its subfolders) with the TypeScript
  * parser:
  * 1. every Excel write (assigning a range's values, formulas or formats; adding, deleting, clearing, inserting,
- *    copying or moving cells or sheets; settings and custom XML) sits in ExcelWorkbook.writeCells or
- *    ExcelWorkbook.addSheet (taskpane/excel-workbook.ts);
- * 2. those two are called only from the button handlers putFormulas and writeReport (taskpane/write-actions.ts);
+ *    copying or moving cells or sheets; adding charts; settings and custom XML) sits in ExcelWorkbook.writeCells,
+ *    ExcelWorkbook.addSheet or ExcelWorkbook.addChart (taskpane/excel-workbook.ts), or in writeInBlocks, which
+ *    only those call;
+ * 2. those are called only from the button handlers putFormulas and writeReport (taskpane/write-actions.ts), or
+ *    from addScatter, which only writeReport calls;
  * 3. the handlers are referenced nowhere but in the two buttons' click listeners.
  * The cell functions cannot write at all: in a shared runtime custom functions may only read, and the bundle never
  * touches Office or Excel (host-contract.test.ts, every-function.test.ts).
@@ -21,7 +23,10 @@ const PANEL = path.join(ROOT, 'taskpane');
 const WRITE_PROPERTIES = new Set(['values', 'formulas', 'formulasLocal', 'formulasR1C1', 'numberFormat', 'numberFormatLocal', 'valuesAsJson', 'hyperlink', 'name', 'visibility', 'position']);
 /** Methods that change the workbook when called on a range, sheet, table or collection (not event handlers). */
 const WRITE_METHODS = new Set(['delete', 'clear', 'insert', 'copyFrom', 'moveTo', 'merge', 'unmerge', 'setCellProperties', 'setRowProperties', 'setColumnProperties', 'autofitColumns', 'autofitRows', 'addTable', 'addFromBase64', 'insertWorksheetsFromBase64', 'addRow', 'addColumn', 'set', 'setValue']);
-const ALLOWED_WRITERS = new Set(['writeCells', 'addSheet']);
+const ALLOWED_WRITERS = new Set(['writeCells', 'addSheet', 'addChart']);
+/** Helpers that write or call a writer, each with the only functions allowed to call it. */
+const HELPERS: Record<string, string[]> = { writeInBlocks: ['writeCells', 'addSheet'], addScatter: ['writeReport'] };
+const isHelper = (name: string) => Object.prototype.hasOwnProperty.call(HELPERS, name);
 const BUTTON_HANDLERS = new Set(['putFormulas', 'writeReport']);
 
 /** Every TypeScript source under taskpane/, at any depth. */
@@ -104,7 +109,7 @@ describe('the panel writes only where the user asks', () => {
   test('every Excel write is inside ExcelWorkbook.writeCells or ExcelWorkbook.addSheet', () => {
     const writes = excelWrites();
     expect(writes.length).toBeGreaterThan(0);
-    const elsewhere = writes.filter((w) => !(w.file === 'taskpane/excel-workbook.ts' && ALLOWED_WRITERS.has(w.inside)));
+    const elsewhere = writes.filter((w) => !(w.file === 'taskpane/excel-workbook.ts' && (ALLOWED_WRITERS.has(w.inside) || isHelper(w.inside))));
     expect(elsewhere).toEqual([]);
   });
 
@@ -130,7 +135,19 @@ describe('the panel writes only where the user asks', () => {
       }),
     );
     expect(calls.length).toBeGreaterThan(0);
-    expect(calls.filter((c) => !BUTTON_HANDLERS.has(c.inside))).toEqual([]);
+    expect(calls.filter((c) => !BUTTON_HANDLERS.has(c.inside) && !isHelper(c.inside))).toEqual([]);
+  });
+
+  test('each writing helper is called only from where it may be', () => {
+    const calls = panelFiles().flatMap((file) =>
+      scan(file, (n, _sf, add) => {
+        if (!ts.isCallExpression(n)) return;
+        const callee = ts.isIdentifier(n.expression) ? n.expression.text : ts.isPropertyAccessExpression(n.expression) ? n.expression.name.text : '';
+        if (isHelper(callee)) add(n, callee);
+      }),
+    );
+    expect(calls.map((c) => c.what).sort()).toEqual(expect.arrayContaining(['addScatter', 'writeInBlocks']));
+    expect(calls.filter((c) => !HELPERS[c.what].includes(c.inside))).toEqual([]);
   });
 
   test('the handlers are used only as click listeners of buttons', () => {

@@ -35,6 +35,8 @@ class World {
   selection = 'North!B1:C5';
   multiArea = true;
   created: OfficeMockObject[] = [];
+  /** Charts added, as the module left them (title, axes, legend). */
+  charts: { title: { text: string }; legend: { visible: boolean }; axes: { categoryAxis: { title: { text: string } }; valueAxis: { title: { text: string } } } }[] = [];
   log: string[] = [];
   events: boolean[] = [];
   writtenRanges: OfficeMockObject[] = [];
@@ -172,6 +174,38 @@ class World {
         },
         activate() {
           world.log.push(`activate ${name}`);
+        },
+        charts: {
+          add(type: string, source: OfficeMockObject, seriesBy: string) {
+            // The range's address as the double made it (the module need not load it to pass the range on).
+            const addressOf = (r: OfficeMockObject) => (r as unknown as { _properties: Map<string, { _valueBeforeLoaded: string }> })._properties.get('address')!._valueBeforeLoaded;
+            world.log.push(`chart ${type} of ${addressOf(source)} by ${seriesBy} on ${name}`);
+            const chart = {
+              title: { text: '' },
+              legend: { visible: true },
+              axes: { categoryAxis: { title: { text: '' } }, valueAxis: { title: { text: '' } } },
+              series: {
+                getItemAt(i: number) {
+                  return {
+                    name: '',
+                    setXAxisValues(r: OfficeMockObject) {
+                      world.log.push(`series ${i} x from ${addressOf(r)}`);
+                    },
+                    trendlines: {
+                      add(kind: string) {
+                        world.log.push(`series ${i} trendline ${kind}`);
+                      },
+                    },
+                  };
+                },
+              },
+              setPosition(at: string) {
+                world.log.push(`chart at ${at}`);
+              },
+            };
+            world.charts.push(chart);
+            return chart;
+          },
         },
         onChanged: {
           add(handler: Handler) {
@@ -436,6 +470,23 @@ describe('ExcelWorkbook on office-addin-mock', () => {
     w.failNextSync = 'AccessDenied: the sheet is protected';
     await expect(new ExcelWorkbook().writeCells('North!E1', [['x']])).rejects.toThrow(/AccessDenied/);
     expect(w.events).toEqual([false, true]);
+  });
+
+  test('addChart adds a native XY scatter bound to the data cells, with a linear trendline and titled axes', async () => {
+    const w = demoWorld();
+    w.sheets.set('Covary report', []);
+    await new ExcelWorkbook().addChart('Covary report', {
+      title: 'Loaves sold against Oven hours', x: 'North!B2:B5', y: 'North!C2:C5', xTitle: 'Oven hours', yTitle: 'Loaves sold', at: 'M2', trendline: true,
+    });
+    expect(w.log).toEqual([
+      'chart XYScatter of North!C2:C5 by Columns on Covary report',
+      'series 0 x from North!B2:B5',
+      'series 0 trendline Linear',
+      'chart at M2',
+    ]);
+    expect(w.charts[0].title.text).toBe('Loaves sold against Oven hours');
+    expect(w.charts[0].legend.visible).toBe(false);
+    expect([w.charts[0].axes.categoryAxis.title.text, w.charts[0].axes.valueAxis.title.text]).toEqual(['Oven hours', 'Loaves sold']);
   });
 
   test('addSheet picks an unused name, writes from A1 and shows the sheet', async () => {
