@@ -9,7 +9,7 @@ import { formatCount } from '../src/stats/format';
 import { functionCallNote } from './host-limits';
 import type { Method } from '../src/stats/types';
 import { twoColumnsOf } from './address';
-import { computeComparison } from './compare-view';
+import { computeComparison, isCompareFailure } from './compare-view';
 import { ComputeClient } from './compute-client';
 import { Design, designProblem, detectDesign } from './design';
 import { clear, el } from './dom';
@@ -74,6 +74,8 @@ export class PanelController {
   private generation = 0;
   /** Cancels the reads of the refresh in progress when a newer one starts. */
   private readAbort = new AbortController();
+  /** The comparison on screen, for the report sheet; null when there is none (or it failed). */
+  private lastComparison: WriteSubject['comparison'] | null = null;
 
   constructor(private readonly root: HTMLElement, private readonly wb: Workbook, private readonly opts: PanelOptions) {
     this.state = {
@@ -216,7 +218,7 @@ export class PanelController {
   private writeSubject(): WriteSubject | null {
     const { main, method, level, alpha, a1References } = this.state;
     if (!this.mainReads || !main) return null;
-    return { reads: this.mainReads, choice: main, options: { method, level, alpha, a1: a1References } };
+    return { reads: this.mainReads, choice: main, options: { method, level, alpha, a1: a1References }, comparison: this.lastComparison ?? undefined };
   }
 
   private selectRow(row: number): void {
@@ -396,6 +398,7 @@ export class PanelController {
   /** Reads pair B and renders the comparison with pair A (already paired); false when a newer refresh took over. */
   private async refreshComparison(gen: number, reads: Reads, pairsA: PairedRows): Promise<boolean> {
     const second = this.state.second;
+    this.lastComparison = null;
     if (!second) {
       this.compare.render(null, null);
       return true;
@@ -419,7 +422,11 @@ export class PanelController {
     else {
       const problem = designProblem(chosen, blocksA, blocksB);
       if (problem) this.compare.render({ error: problem }, detection);
-      else this.compare.render(computeComparison(reads, readsB, chosen, detection, this.state.level, pairsA, this.state.method), detection);
+      else {
+        const view = computeComparison(reads, readsB, chosen, detection, this.state.level, pairsA, this.state.method);
+        if (!isCompareFailure(view)) this.lastComparison = { reads: readsB, choice: this.state.second ?? second, design: chosen, common: detection.common };
+        this.compare.render(view, detection);
+      }
     }
     return true;
   }

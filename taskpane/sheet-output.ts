@@ -123,14 +123,27 @@ const CHECKS_ROWS = 9;
  * conclusion hold). References carry their sheet (the report is on a new sheet). Every text is entered as text
  * (src/sheet/entries.ts), so a header that begins with "=" cannot become a formula.
  */
-export function reportSheetCells(x: ColumnRef, y: ColumnRef, names: { x: string; y: string }, o: FormulaOptions, writtenAt: Date): Entry[][] {
+/** Pair B of the panel's comparison, for the report: its columns, the design and (shared) which column is common. */
+export interface ReportComparison {
+  x: ColumnRef;
+  y: ColumnRef;
+  names: { x: string; y: string };
+  design: 'independent' | 'shared' | 'separate';
+  /** For "shared": the position of the common column in pair A and in pair B. */
+  common?: { a: 0 | 1; b: 0 | 1 };
+}
+
+/** Rows of the report above which the comparison may start: REPORT spills up to 24 rows from row 10. */
+const COMPARISON_ROW = 36;
+
+export function reportSheetCells(x: ColumnRef, y: ColumnRef, names: { x: string; y: string }, o: FormulaOptions, writtenAt: Date, compare?: ReportComparison): Entry[][] {
   const xr = columnReference(x, '', o.a1);
   const yr = columnReference(y, '', o.a1);
   const args = `${xr}, ${yr}`;
   const width = 4;
   const row = (...cells: Entry[]): Entry[] => [...cells, ...Array(width - cells.length).fill('')];
   const t = textEntry;
-  return [
+  const rows: Entry[][] = [
     row(t('Covary report')),
     // The names alone in B2 and B3 (REPORT's reading names the columns from them), the cells beside them.
     row(t('x'), t(names.x), t(formatBlock(x.block))),
@@ -144,4 +157,29 @@ export function reportSheetCells(x: ColumnRef, y: ColumnRef, names: { x: string;
     row('', '', '', t('Does the conclusion hold?')),
     row('', '', '', formulaEntry(`=COVARY.SENSITIVITY(${args}, ${o.level}, ${literal(o.method)})`)),
   ];
+  if (!compare) return rows;
+  while (rows.length < COMPARISON_ROW - 1) rows.push(row());
+  const a = [xr, yr];
+  const b = [columnReference(compare.x, '', o.a1), columnReference(compare.y, '', o.a1)];
+  const m = literal(o.method);
+  let formula: string;
+  let what: string;
+  if (compare.design === 'independent') {
+    formula = `=COVARY.DIFF_GROUPS(${a[0]}, ${a[1]}, ${b[0]}, ${b[1]}, ${o.level}, "both", ${m})`;
+    what = 'two separate groups (different rows)';
+  } else if (compare.design === 'shared' && compare.common) {
+    const ia = compare.common.a;
+    const ib = compare.common.b;
+    formula = `=COVARY.DIFF_SHARED(${a[ia]}, ${a[1 - ia]}, ${b[1 - ib]}, ${o.level}, "both", ${m})`;
+    what = 'the same rows, one column in common';
+  } else {
+    formula = `=COVARY.DIFF_SEPARATE(${a[0]}, ${a[1]}, ${b[0]}, ${b[1]}, ${o.level}, "both", ${m})`;
+    what = 'the same rows, four different columns';
+  }
+  rows.push(
+    row(t('Comparison'), t(`Pair A (${names.y} with ${names.x}) against pair B (${compare.names.y} with ${compare.names.x}, ${formatBlock(compare.x.block)} and ${formatBlock(compare.y.block)}): ${what}`)),
+    row(t('A − B'), t('lower'), t('upper'), t('p-value')),
+    row(formulaEntry(formula)),
+  );
+  return rows;
 }

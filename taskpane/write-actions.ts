@@ -20,6 +20,8 @@ export interface WriteSubject {
   reads: [NumericColumnRead, NumericColumnRead];
   choice: PairChoice;
   options: FormulaOptions;
+  /** Pair B and the design of the comparison on screen, when there is one (the report carries it). */
+  comparison?: { reads: [NumericColumnRead, NumericColumnRead]; choice: PairChoice; design: 'independent' | 'shared' | 'separate'; common?: { a: 0 | 1; b: 0 | 1 } };
 }
 
 /** The two buttons and the line that says what they did. */
@@ -89,7 +91,17 @@ export function writeActions(wb: Workbook, subject: () => WriteSubject | null): 
     }
     const [xr, yr] = refsOf(s);
     try {
-      const cells = reportSheetCells(xr, yr, { x: s.reads[0].header, y: s.reads[1].header }, s.options, new Date());
+      const c = s.comparison;
+      const compare = c
+        ? {
+            x: { source: c.choice.x, block: dataBlock(c.reads[0]) },
+            y: { source: c.choice.y, block: dataBlock(c.reads[1]) },
+            names: { x: c.reads[0].header, y: c.reads[1].header },
+            design: c.design,
+            common: c.common,
+          }
+        : undefined;
+      const cells = reportSheetCells(xr, yr, { x: s.reads[0].header, y: s.reads[1].header }, s.options, new Date(), compare);
       const name = await wb.addSheet('Covary report', cells);
       const chart = await addScatter(name, s, xr, yr);
       status.textContent = `Report written to the sheet "${name}"${chart}.`;

@@ -239,6 +239,20 @@ describe('picking and writing', () => {
     const [, xName, yName] = /X: (.+?) \(.*Y: (.+?) \(/.exec(label)!;
     expect(String(reading)).toContain(`${yName} tends to rise as ${xName} rises`);
     expect(String(reading)).not.toMatch(/\by tends to|as x rises/);
+    // The comparison on screen is on the report as a live formula, and gives the panel's difference.
+    const shown = await page().evaluate(() => window.__covaryPanel!.comparison());
+    expect(shown).not.toBeNull(); // pair B was picked in the compare test above
+    if (shown) {
+      const diff = await page().evaluate((sheet) => {
+        for (let r = 30; r <= 60; r++) {
+          const e = window.covaryWorkbench!.entry(`'${sheet}'!A${r}`);
+          if (e.startsWith('=COVARY.DIFF_')) return { formula: e, value: window.covaryWorkbench!.value(`'${sheet}'!A${r}`) };
+        }
+        return null;
+      }, active!);
+      expect(diff).not.toBeNull();
+      expectRelClose(diff!.value as number, shown.difference, 1e-9);
+    }
     await screenshot(page(), 'workbench-panel-report-sheet');
   });
 });

@@ -96,3 +96,32 @@ describe('headers are never formulas', () => {
     expect(texts.map(shownText).join('\n')).toContain(h);
   });
 });
+
+describe('report sheet with the comparison on screen', () => {
+  const opts = { method: 'spearman' as const, level: 0.9, alpha: 0.05 };
+  const cells = (design: 'independent' | 'shared' | 'separate', common?: { a: 0 | 1; b: 0 | 1 }) =>
+    reportSheetCells(rangeRef('N!B2:B49'), rangeRef('N!C2:C49'), { x: 'Mechanics', y: 'Repairs' }, opts, new Date(0), {
+      x: rangeRef(design === 'independent' ? 'S!B2:B41' : 'N!D2:D49'),
+      y: rangeRef(design === 'shared' ? 'N!C2:C49' : design === 'independent' ? 'S!C2:C41' : 'N!E2:E49'),
+      names: { x: 'Other', y: 'Repairs' },
+      design,
+      common,
+    });
+  const diff = (rows: Entry[][]) => rows.flat().filter(isFormulaEntry).find((f) => String(f).startsWith('=COVARY.DIFF_'));
+
+  test('each design writes its own comparison formula, below the REPORT spill, with the options in force', () => {
+    expect(diff(cells('independent'))).toBe('=COVARY.DIFF_GROUPS(N!$B$2:$B$49, N!$C$2:$C$49, S!$B$2:$B$41, S!$C$2:$C$41, 0.9, "both", "spearman")');
+    // Shared: the common column first (C in both pairs), then pair A's other column, then pair B's.
+    expect(diff(cells('shared', { a: 1, b: 1 }))).toBe('=COVARY.DIFF_SHARED(N!$C$2:$C$49, N!$B$2:$B$49, N!$D$2:$D$49, 0.9, "both", "spearman")');
+    expect(diff(cells('separate'))).toBe('=COVARY.DIFF_SEPARATE(N!$B$2:$B$49, N!$C$2:$C$49, N!$D$2:$D$49, N!$E$2:$E$49, 0.9, "both", "spearman")');
+    const rows = cells('independent');
+    const at = rows.findIndex((r) => String(r[0]).startsWith('=COVARY.DIFF_'));
+    expect(at).toBeGreaterThanOrEqual(36);
+    expect(new Set(rows.map((r) => r.length)).size).toBe(1);
+  });
+
+  test('without a comparison the report ends with its SENSITIVITY table', () => {
+    const rows = reportSheetCells(rangeRef('N!B2:B49'), rangeRef('N!C2:C49'), { x: 'M', y: 'R' }, opts, new Date(0));
+    expect(diff(rows)).toBeUndefined();
+  });
+});
