@@ -9,7 +9,13 @@
  * arrays (its best case) and on the data as a spreadsheet hands them over (a list of one-cell rows, converted
  * inside the timed call), because Covary's times always include reading the host's cells.
  *
- * Options: --sizes 1e3,1e4,1e5,1e6   --runs 3   --json out.json
+ * The data come in three kinds, as sheets hold them: "full" (full-precision doubles, what every computed column
+ * holds: =A2*1.07, =RAND(), a lookup), "cents" (typed to two decimals: money) and "ties" (whole numbers 1 to 7
+ * with many ties: ratings). By default the host's row arrays are built afresh for every call, as Excel
+ * deserializes them; --arrays kept reuses one set (edited in one cell per call), the older, kinder measure.
+ * Each kind reports its ratios; the first call of each function is reported apart from the median.
+ *
+ * Options: --sizes 1e3,1e4,1e5,1e6   --runs 3   --kinds full,cents,ties   --arrays fresh|kept   --json out.json
  */
 const fs = require('fs');
 const os = require('os');
@@ -23,6 +29,8 @@ const opt = (name, dflt) => {
 };
 const SIZES = opt('sizes', '1e3,1e4,1e5,1e6').split(',').map(Number);
 const RUNS = Number(opt('runs', '3'));
+const KINDS = opt('kinds', 'full,cents,ties').split(',');
+const FRESH_ARRAYS = opt('arrays', 'fresh') !== 'kept';
 const root = path.resolve(__dirname, '..');
 const dist = path.join(root, 'dist');
 
@@ -47,8 +55,9 @@ const fns = loadBundle();
 const { jStat } = require('jstat');
 const ss = require('simple-statistics');
 
-// ---- deterministic data: y = 0.5 x + noise (Box-Muller on a small LCG), decimals with 6 places as in a sheet
-function makeData(n, seed) {
+// ---- deterministic data: y = 0.5 x + noise (Box-Muller on a small LCG), in one of the kinds above (six-decimal
+// values when no kind is given: the fixed-size checks further down)
+function makeData(n, seed, kind) {
   let s = seed >>> 0;
   const u = () => ((s = (Math.imul(s, 1664525) + 1013904223) >>> 0) + 0.5) / 4294967296;
   const x = new Float64Array(n);
@@ -56,8 +65,19 @@ function makeData(n, seed) {
   for (let i = 0; i < n; i++) {
     const a = Math.sqrt(-2 * Math.log(u())) * Math.cos(2 * Math.PI * u());
     const b = Math.sqrt(-2 * Math.log(u())) * Math.cos(2 * Math.PI * u());
-    x[i] = Math.round((50 + 10 * a) * 1e6) / 1e6;
-    y[i] = Math.round((0.5 * x[i] + 8 * b) * 1e6) / 1e6;
+    if (kind === 'full') {
+      x[i] = 50 + 10 * a;
+      y[i] = 0.5 * x[i] + 8 * b;
+    } else if (kind === 'cents') {
+      x[i] = Math.round((500 + 100 * a) * 100) / 100;
+      y[i] = Math.round((0.5 * x[i] + 80 * b) * 100) / 100;
+    } else if (kind === 'ties') {
+      x[i] = Math.min(7, Math.max(1, Math.round(4 + 1.3 * a)));
+      y[i] = Math.min(7, Math.max(1, Math.round(4 + 0.6 * (x[i] - 4) + 1.1 * b)));
+    } else {
+      x[i] = Math.round((50 + 10 * a) * 1e6) / 1e6;
+      y[i] = Math.round((0.5 * x[i] + 8 * b) * 1e6) / 1e6;
+    }
   }
   return { x, y };
 }
@@ -179,21 +199,28 @@ console.log(`Covary bench on ${os.cpus()[0].model.trim()} (${os.cpus().length} c
 console.log(`peers: jstat ${require('jstat/package.json').version}, simple-statistics ${require('simple-statistics/package.json').version}` +
   (hasScipy ? `, scipy (Debian python3-scipy)${hasStatsmodels ? ' and statsmodels' : ' (statsmodels missing: python3-statsmodels not installed)'}` : ', scipy/statsmodels missing: install python3-scipy python3-statsmodels for those ratios'));
 
-for (const n of SIZES) {
-  const { x, y } = makeData(n, 12345 + n);
+console.log(`data kinds: ${KINDS.join(', ')}; host arrays ${FRESH_ARRAYS ? 'built afresh for every call (as Excel passes them)' : 'kept between calls, one cell edited per call'}`);
+for (const kind of KINDS) for (const n of SIZES) {
+  const { x, y } = makeData(n, 12345 + n, kind);
   const X = toCol(x);
   const Y = toCol(y);
-  // Settle the heap once the data are built, as in a workbook that has been open a while: otherwise the first
-  // function timed pays for moving the two million new row arrays out of the young generation (run with
-  // --expose-gc, as `npm run bench` does; without it this step is skipped).
-  if (typeof global.gc === 'function') global.gc();
+  // With kept arrays, settle the heap once the data are built, as in a workbook that has been open a while
+  // (run with --expose-gc, as `npm run bench` does). With fresh arrays the collections they cause are part of
+  // every call, as in Excel.
+  if (!FRESH_ARRAYS && typeof global.gc === 'function') global.gc();
   const fresh = () => {
     // An edit per call (one cell, a value never used before), so the content cache can never answer from an
     // earlier call: every time is a cold computation. The arrays are the host's shape: one array per row.
-    Y[0] = [y[0] + ++salt * 1e-6];
+    const y0 = y[0] + ++salt * (kind === 'ties' ? 0 : 1e-6);
+    if (FRESH_ARRAYS) {
+      const Yf = toCol(y);
+      Yf[0] = [kind === 'ties' ? ((salt % 7) + 1) : y0];
+      return [toCol(x), Yf];
+    }
+    Y[0] = [kind === 'ties' ? ((salt % 7) + 1) : y0];
     return [X, Y];
   };
-  const row = { n };
+  const row = { n, kind };
   for (const [label, id, extra] of [
     ['COEF pearson', 'COEF', ['pearson']],
     ['COEF spearman', 'COEF', ['spearman']],
@@ -228,7 +255,10 @@ for (const n of SIZES) {
   row['jstat corrcoeff'] = time(() => [xs, ysA], (a, b) => jStat.corrcoeff(a, b)).ms;
   row['jstat spearmancoeff'] = n <= 1e5 ? time(() => [xs, ysA], (a, b) => jStat.spearmancoeff(a, b)).ms : null;
   row['ss sampleCorrelation'] = time(() => [xs, ysA], (a, b) => ss.sampleCorrelation(a, b)).ms;
-  const py = pythonPeers(x, y);
+  // The peers see the same numbers the functions were given (the first y cell as the last run left it).
+  const yPeer = Float64Array.from(y);
+  yPeer[0] = fresh(-2)[1][0][0];
+  const py = pythonPeers(x, yPeer);
   if (py) {
     row['scipy pearsonr'] = py.pearsonr[0];
     row['scipy spearmanr'] = py.spearmanr[0];
@@ -252,32 +282,33 @@ for (const n of SIZES) {
 const cols = ['COEF pearson', 'COEF spearman', 'COEF kendall', 'INTERVAL', 'PVALUE', 'FLAGS', 'CHECKS', 'REPORT', 'recalc (5 fns)',
   'jstat corrcoeff', 'jstat spearmancoeff', 'ss sampleCorrelation', 'scipy pearsonr', 'scipy spearmanr', 'scipy kendalltau', 'scipy pearsonr (cells)', 'scipy spearmanr (cells)', 'scipy kendalltau (cells)', 'statsmodels checks'];
 const present = cols.filter((c) => rows.some((r) => r[c] !== undefined));
-console.log('\nTime per call (ms) by number of complete pairs n:');
-console.log(['n'.padStart(9), ...present.map((c) => c.padStart(Math.max(9, c.length)))].join(' '));
-for (const r of rows) console.log([String(r.n).padStart(9), ...present.map((c) => fmt(r[c]).padStart(Math.max(9, c.length)))].join(' '));
+console.log('\nTime per call (ms, median; the first call apart below) by data kind and number of complete pairs n:');
+console.log(['kind'.padEnd(6), 'n'.padStart(9), ...present.map((c) => c.padStart(Math.max(9, c.length)))].join(' '));
+for (const r of rows) console.log([r.kind.padEnd(6), String(r.n).padStart(9), ...present.map((c) => fmt(r[c]).padStart(Math.max(9, c.length)))].join(' '));
+console.log('\nFirst call (ms): what the first recalculation after opening a workbook costs:');
+for (const r of rows) console.log([r.kind.padEnd(6), String(r.n).padStart(9), ...['COEF pearson', 'COEF spearman', 'COEF kendall', 'CHECKS', 'REPORT'].map((c) => `${c} ${fmt(r[c + ':first'])}`)].join('  '));
 
 console.log('\nRatios project / peer (below 1: Covary is faster):');
 const pairsOfInterest = [
-  ['COEF pearson', 'scipy pearsonr', 1.0], ['COEF spearman', 'scipy spearmanr', 1.0], ['COEF kendall', 'scipy kendalltau', 1.0],
+  ['COEF pearson', 'scipy pearsonr', 0.5], ['COEF spearman', 'scipy spearmanr', 0.5], ['COEF kendall', 'scipy kendalltau', 0.5],
   ['COEF pearson', 'scipy pearsonr (cells)'], ['COEF spearman', 'scipy spearmanr (cells)'], ['COEF kendall', 'scipy kendalltau (cells)'],
-  ['CHECKS', 'statsmodels checks', 2.0], ['COEF pearson', 'jstat corrcoeff'], ['COEF spearman', 'jstat spearmancoeff'], ['COEF pearson', 'ss sampleCorrelation'],
+  ['CHECKS', 'statsmodels checks', 0.5], ['COEF pearson', 'jstat corrcoeff'], ['COEF spearman', 'jstat spearmancoeff'], ['COEF pearson', 'ss sampleCorrelation'],
 ];
 for (const r of rows) {
   for (const [ours, peer, target] of pairsOfInterest) {
     if (typeof r[ours] !== 'number' || typeof r[peer] !== 'number') continue;
     const ratio = r[ours] / r[peer];
     const verdict = target === undefined ? '' : ratio <= target ? `  (target <= ${target}: met)` : `  (target <= ${target}: NOT met)`;
-    ratios.push({ n: r.n, ours, peer, ratio });
-    console.log(`  n=${String(r.n).padEnd(8)} ${ours.padEnd(14)} / ${peer.padEnd(22)} = ${ratio.toFixed(2)}${verdict}`);
+    ratios.push({ kind: r.kind, n: r.n, ours, peer, ratio });
+    console.log(`  ${r.kind.padEnd(5)} n=${String(r.n).padEnd(8)} ${ours.padEnd(14)} / ${peer.padEnd(22)} = ${ratio.toFixed(2)}${verdict}`);
   }
 }
 
 // The host must not be blocked for more than 1 s by any one call at the largest size: the first call and the
 // slowest timed call of each function.
 {
-  const big = rows.find((r) => r.n === Math.max(...SIZES));
-  if (big && big.n >= 1e6) {
-    console.log(`\nLongest single call at n=${big.n} (target: no call blocks the host for more than 1 s):`);
+  for (const big of rows.filter((r) => r.n === Math.max(...SIZES) && r.n >= 1e6)) {
+    console.log(`\nLongest single call at n=${big.n}, ${big.kind} (target: no call blocks the host for more than 1 s):`);
     for (const label of ['COEF pearson', 'COEF spearman', 'COEF kendall', 'INTERVAL', 'PVALUE', 'FLAGS', 'CHECKS', 'REPORT']) {
       if (typeof big[label] !== 'number') continue;
       const worst = Math.max(big[label + ':first'], big[label + ':max']);
