@@ -10,6 +10,27 @@ import * as os from 'os';
 import * as path from 'path';
 import { BrowserContext, Page, chromium } from 'playwright-core';
 import type {} from '../../workbench/debug-handle';
+import type { PanelDebug } from '../../taskpane/panel';
+
+declare global {
+  interface Window {
+    __covaryPanel?: PanelDebug;
+  }
+}
+
+/** Waits until the panel is mounted and no refresh is running or waiting. */
+export async function panelIdle(p: Page): Promise<void> {
+  await p.waitForFunction(() => window.__covaryPanel !== undefined, undefined, { timeout: 30000 });
+  await p.evaluate(() => window.__covaryPanel!.whenIdle());
+}
+
+/** Runs an action and waits until the panel has drawn again and settled. */
+export async function afterPanelRedraw(p: Page, action: () => Promise<unknown>): Promise<void> {
+  const before = await p.evaluate(() => window.__covaryPanel!.renderCount());
+  await action();
+  await p.waitForFunction((n) => window.__covaryPanel!.renderCount() > n, before, { timeout: 30000 });
+  await panelIdle(p);
+}
 
 export const ROOT = path.resolve(__dirname, '../..');
 export const ARTIFACTS = path.join(ROOT, 'test-artifacts');

@@ -6,15 +6,7 @@
  * and a column without a header is named once. The expected figures are the grid's COEF formula cells (the cell
  * functions in the formula worker, a second route through the core), never the panel's own output.
  */
-import type { PanelDebug } from '../../taskpane/panel';
-import { BrowserSession, RunningWorkbench, cellValue, openBrowser, screenshot, settle, startWorkbench, typeInto } from './harness';
-import type { Page } from 'playwright-core';
-
-declare global {
-  interface Window {
-    __covaryPanel?: PanelDebug;
-  }
-}
+import { BrowserSession, RunningWorkbench, afterPanelRedraw, cellValue, openBrowser, panelIdle, screenshot, settle, startWorkbench, typeInto } from './harness';
 
 jest.setTimeout(120000);
 
@@ -23,17 +15,7 @@ let browser: BrowserSession;
 const page = () => browser.page;
 const testid = (id: string) => page().locator(`[data-testid="${id}"]`);
 
-async function panelIdle(p: Page): Promise<void> {
-  await p.waitForFunction(() => window.__covaryPanel !== undefined, undefined, { timeout: 30000 });
-  await p.evaluate(() => window.__covaryPanel!.whenIdle());
-}
-
-async function afterRedraw(action: () => Promise<unknown>): Promise<void> {
-  const before = await page().evaluate(() => window.__covaryPanel!.renderCount());
-  await action();
-  await page().waitForFunction((n) => window.__covaryPanel!.renderCount() > n, before, { timeout: 30000 });
-  await panelIdle(page());
-}
+const afterRedraw = (action: () => Promise<unknown>) => afterPanelRedraw(page(), action);
 
 /** Waits for the panel to finish whatever an action started (a redraw or a failure). */
 async function afterAction(action: () => Promise<unknown>): Promise<void> {

@@ -5,18 +5,11 @@
  * leads back to its row, the comparison shows a difference with its interval, the write buttons produce formulas
  * the grid evaluates, and a header holding markup stays text. Every request stays on localhost.
  */
-import type { PanelDebug } from '../../taskpane/panel';
 import {
-  BrowserSession, RunningWorkbench, cell, cellValue, foreignRequests, openBrowser, screenshot, settle, showSheet,
-  startWorkbench, typeInto,
+  BrowserSession, RunningWorkbench, afterPanelRedraw, cell, cellValue, foreignRequests, openBrowser, panelIdle, screenshot,
+  settle, showSheet, startWorkbench, typeInto,
 } from './harness';
 import type { Page } from 'playwright-core';
-
-declare global {
-  interface Window {
-    __covaryPanel?: PanelDebug;
-  }
-}
 
 jest.setTimeout(120000);
 
@@ -29,19 +22,6 @@ const page = () => browser.page;
 function expectRelClose(a: number, b: number, tol: number): void {
   expect(Number.isFinite(a) && Number.isFinite(b)).toBe(true);
   expect(Math.abs(a - b)).toBeLessThanOrEqual(tol * Math.max(Math.abs(a), Math.abs(b), Number.MIN_VALUE));
-}
-
-async function panelIdle(p: Page): Promise<void> {
-  await p.waitForFunction(() => window.__covaryPanel !== undefined, undefined, { timeout: 30000 });
-  await p.evaluate(() => window.__covaryPanel!.whenIdle());
-}
-
-/** Runs an action and waits until the panel has drawn again and settled. */
-async function afterPanelRedraw(p: Page, action: () => Promise<void>): Promise<void> {
-  const before = await p.evaluate(() => window.__covaryPanel!.renderCount());
-  await action();
-  await p.waitForFunction((n) => window.__covaryPanel!.renderCount() > n, before, { timeout: 30000 });
-  await panelIdle(p);
 }
 
 function summary(p: Page) {
