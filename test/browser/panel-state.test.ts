@@ -124,16 +124,16 @@ describe('compare', () => {
   test('two groups compared on different measures carry a caution; the same measures do not', async () => {
     const cautions = testid('compare-cautions');
     // While North's B1 is renamed, the two groups' columns are named differently: a caution already.
-    await expect(cautions.isVisible()).resolves.toBe(true);
+    await expect(cautions.getAttribute('class')).resolves.not.toContain('cv-hidden');
     await afterRedraw(() => typeInto(page(), 'North', 'B1', 'Mechanics (FTE)'));
-    await expect(cautions.isVisible()).resolves.toBe(false);
+    await expect(cautions.getAttribute('class')).resolves.toContain('cv-hidden');
     await afterRedraw(async () => {
       await testid('second-mode-table').click();
       await page().waitForFunction(() => [...document.querySelectorAll('[data-testid="second-x-column"] option')].some((o) => o.textContent === 'Floor area m²'), undefined, { timeout: 10000 });
       await testid('second-x-column').selectOption({ label: 'Floor area m²' });
       await testid('second-y-column').selectOption({ label: 'Rent per month' });
     });
-    await expect(cautions.isVisible()).resolves.toBe(true);
+    await expect(cautions.getAttribute('class')).resolves.not.toContain('cv-hidden');
     await expect(cautions.textContent()).resolves.toMatch(/are not the same measures: a comparison of two groups asks whether one relationship differs between them/);
     await screenshot(page(), 'panel-compare-caution');
   });
