@@ -21,7 +21,7 @@
  */
 import { blocksIntersect, CellBlock, formatBlock, MAX_ROWS, parseAddress } from '../src/sheet/a1';
 import { headerText } from '../src/sheet/cells';
-import { WEB_FUNCTION_ARGUMENT_BYTES } from './host-limits';
+import { cellJsonBytes, WEB_FUNCTION_ARGUMENT_BYTES } from './host-limits';
 import { ReadCancelled } from './workbook';
 import type { ColumnSource, RangeRead, ReadOptions, ReportChartSpec, TableInfo, Workbook } from './workbook';
 
@@ -45,11 +45,7 @@ export function payloadBytes(values: unknown[][]): number {
   let bytes = 2;
   for (const row of values) {
     bytes += 3;
-    for (const v of row) {
-      if (typeof v === 'number') bytes += String(v).length + 1;
-      else if (typeof v === 'string') bytes += JSON.stringify(v).length + 1;
-      else bytes += 6; // true, false, null
-    }
+    for (const v of row) bytes += cellJsonBytes(v) + 1;
   }
   return bytes;
 }

@@ -11,6 +11,14 @@ import { formatCount } from '../src/stats/format';
 /** About 5 MB of arguments per custom-function call on Excel on the web. */
 export const WEB_FUNCTION_ARGUMENT_BYTES = 5 * 1024 * 1024;
 
+/** The bytes one cell's value takes as JSON, as the host sends it: a number as its shortest text, text quoted and
+ *  escaped, 5 for TRUE / FALSE / null (the longest of them). Separators are the caller's to add. */
+export function cellJsonBytes(v: unknown): number {
+  if (typeof v === 'number') return String(v).length;
+  if (typeof v === 'string') return JSON.stringify(v).length;
+  return 5;
+}
+
 /** Average JSON bytes per cell of the columns, from up to 2,000 evenly spread cells of each (a blank is 3). */
 export function bytesPerCell(columns: ArrayLike<number>[]): number {
   let bytes = 0;
@@ -19,7 +27,7 @@ export function bytesPerCell(columns: ArrayLike<number>[]): number {
     const step = Math.max(1, Math.floor(c.length / 2000));
     for (let i = 0; i < c.length; i += step) {
       const v = c[i];
-      bytes += (v === v ? String(v).length : 2) + 3; // the number or "" with the row's brackets and separator
+      bytes += cellJsonBytes(v === v ? v : '') + 3; // the number or "" with the row's brackets and separator
       cells++;
     }
   }

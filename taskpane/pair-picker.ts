@@ -173,7 +173,10 @@ export class PairPicker {
     }
     this.say('');
     const columns = this.tables.find((k) => k.name === table)?.columns ?? [];
-    const at = (c: string) => (columns.indexOf(c) >= 0 ? columns.indexOf(c) : undefined);
+    const at = (c: string) => {
+      const i = columns.indexOf(c);
+      return i >= 0 ? i : undefined;
+    };
     this.commit({
       x: { kind: 'table', table, column: this.xSelect.value, position: at(this.xSelect.value) },
       y: { kind: 'table', table, column: this.ySelect.value, position: at(this.ySelect.value) },

@@ -5,6 +5,7 @@
  */
 import { CellBlock, formatBlock } from '../src/sheet/a1';
 import type { ColumnSource } from './workbook';
+import type { Design } from './design';
 import { Method, METHOD_LABELS } from '../src/stats/types';
 import { Entry, formulaEntry, textEntry } from '../src/sheet/entries';
 
@@ -128,7 +129,7 @@ export interface ReportComparison {
   x: ColumnRef;
   y: ColumnRef;
   names: { x: string; y: string };
-  design: 'independent' | 'shared' | 'separate';
+  design: Design;
   /** For "shared": the position of the common column in pair A and in pair B. */
   common?: { a: 0 | 1; b: 0 | 1 };
 }

@@ -9,7 +9,8 @@ import { button, el } from './dom';
 import { PANEL_TEST_IDS } from './panel-api';
 import type { PairChoice } from './pair-picker';
 import { dataBlock } from './pairs';
-import { allBlank, ColumnRef, formulaBlock, FormulaOptions, formulaPlaces, reportSheetCells, topLeftOf } from './sheet-output';
+import { allBlank, ColumnRef, formulaBlock, FormulaOptions, formulaPlaces, ReportComparison, reportSheetCells, topLeftOf } from './sheet-output';
+import type { Design } from './design';
 import type { NumericColumnRead, Workbook } from './workbook';
 
 /** Past this many rows the report gets no native chart (the points would bury the picture and slow the workbook). */
@@ -21,7 +22,7 @@ export interface WriteSubject {
   choice: PairChoice;
   options: FormulaOptions;
   /** Pair B and the design of the comparison on screen, when there is one (the report carries it). */
-  comparison?: { reads: [NumericColumnRead, NumericColumnRead]; choice: PairChoice; design: 'independent' | 'shared' | 'separate'; common?: { a: 0 | 1; b: 0 | 1 } };
+  comparison?: { reads: [NumericColumnRead, NumericColumnRead]; choice: PairChoice; design: Design; common?: { a: 0 | 1; b: 0 | 1 } };
 }
 
 /** The two buttons and the line that says what they did. */
@@ -41,9 +42,9 @@ export function writeActions(wb: Workbook, subject: () => WriteSubject | null): 
     }
   };
 
-  const refsOf = (s: WriteSubject): [ColumnRef, ColumnRef] => [
-    { source: s.choice.x, block: dataBlock(s.reads[0]) },
-    { source: s.choice.y, block: dataBlock(s.reads[1]) },
+  const refsOf = (choice: PairChoice, reads: [NumericColumnRead, NumericColumnRead]): [ColumnRef, ColumnRef] => [
+    { source: choice.x, block: dataBlock(reads[0]) },
+    { source: choice.y, block: dataBlock(reads[1]) },
   ];
 
   async function putFormulas(): Promise<void> {
@@ -52,7 +53,7 @@ export function writeActions(wb: Workbook, subject: () => WriteSubject | null): 
       status.textContent = 'Pick two columns first.';
       return;
     }
-    const [xr, yr] = refsOf(s);
+    const [xr, yr] = refsOf(s.choice, s.reads);
     const sheet = xr.block.sheet;
     try {
       const key = keyOf(s);
@@ -89,18 +90,14 @@ export function writeActions(wb: Workbook, subject: () => WriteSubject | null): 
       status.textContent = 'Pick two columns first.';
       return;
     }
-    const [xr, yr] = refsOf(s);
+    const [xr, yr] = refsOf(s.choice, s.reads);
     try {
       const c = s.comparison;
-      const compare = c
-        ? {
-            x: { source: c.choice.x, block: dataBlock(c.reads[0]) },
-            y: { source: c.choice.y, block: dataBlock(c.reads[1]) },
-            names: { x: c.reads[0].header, y: c.reads[1].header },
-            design: c.design,
-            common: c.common,
-          }
-        : undefined;
+      let compare: ReportComparison | undefined;
+      if (c) {
+        const [x, y] = refsOf(c.choice, c.reads);
+        compare = { x, y, names: { x: c.reads[0].header, y: c.reads[1].header }, design: c.design, common: c.common };
+      }
       const cells = reportSheetCells(xr, yr, { x: s.reads[0].header, y: s.reads[1].header }, s.options, new Date(), compare);
       const name = await wb.addSheet('Covary report', cells);
       const chart = await addScatter(name, s, xr, yr);

@@ -170,9 +170,8 @@ export function REPORT(x: any[][], y: any[][], level?: number, method?: string, 
     const { pairs, prepared, report } = checkedPairs(x, y, REPORT_CHECK_ALPHA, address, (n) => assertWithinBudget('report', m, n, n));
     const names = pairNames(x, pairs, address);
     // The reading names the columns by their headers when the ranges start with one (as the report sheet's do).
-    const given = (v: unknown) => (typeof v === 'string' && v.trim() !== '' ? v.trim() : null);
-    const xn = given(x_name) ?? headerText(x?.[0]?.[0]) ?? 'x';
-    const yn = given(y_name) ?? headerText(y?.[0]?.[0]) ?? 'y';
+    const xn = headerText(x_name)?.trim() ?? headerText(x?.[0]?.[0]) ?? 'x';
+    const yn = headerText(y_name)?.trim() ?? headerText(y?.[0]?.[0]) ?? 'y';
     const columns = { x: xn, y: yn };
     const c = conclude(prepared, report, { method: m, level: lvl, name: names, interval: iv, columns });
     const result = c.correlation;

@@ -17,6 +17,8 @@ import { METHOD_LABELS, Method, StatsInputError } from '../types';
 export const CALL_BUDGET_MS = 1000;
 /** The share of the budget a prediction may use: the rest covers a slower machine or a busy moment. */
 const MARGIN = 0.85;
+/** What a predicted time may reach (MATRIX's cost model uses it too). */
+export const PREDICTION_BUDGET_MS = CALL_BUDGET_MS * MARGIN;
 
 export type BudgetedCall = 'comparison' | 'sensitivity' | 'report' | 'partial';
 
@@ -37,7 +39,7 @@ function usPerRow(call: BudgetedCall, method: Method): number {
 export function rowsWithinBudget(call: BudgetedCall, method: Method): number {
   const us = usPerRow(call, method);
   if (us === 0) return Infinity;
-  return Math.floor((CALL_BUDGET_MS * 1000 * MARGIN) / us / 10000) * 10000;
+  return Math.floor((PREDICTION_BUDGET_MS * 1000) / us / 10000) * 10000;
 }
 
 const fmt = (n: number) => n.toLocaleString('en-US');
@@ -52,7 +54,7 @@ const fmt = (n: number) => n.toLocaleString('en-US');
 export function assertWithinBudget(call: BudgetedCall, method: Method, rows: number, shownRows: number): void {
   const us = usPerRow(call, method);
   const ms = (us * rows) / 1000;
-  if (ms <= CALL_BUDGET_MS * MARGIN) return;
+  if (ms <= PREDICTION_BUDGET_MS) return;
   const perShown = rows / shownRows;
   const fit = Math.floor(rowsWithinBudget(call, method) / perShown / 10000) * 10000;
   const seconds = ms >= 10000 ? Math.round(ms / 1000).toString() : (ms / 1000).toFixed(1);

@@ -2,6 +2,7 @@
  * The correlation matrix of k columns, each pair on its own complete rows (pairwise deletion), with two-sided
  * p-values adjusted across the k(k - 1)/2 distinct pairs.
  */
+import { PREDICTION_BUDGET_MS } from '../budget/call-budget';
 import { coMoments } from '../correlation/comoments';
 import { correlate } from '../correlation/correlate';
 import { pFromT, tFromR } from '../correlation/fisher';
@@ -58,8 +59,8 @@ export interface CorrelationMatrix {
  */
 export const MATRIX_LIMITS = {
   maxColumns: 200,
-  // 85% of a cell call's 1 s, as for the other costly calls (src/stats/budget/call-budget.ts).
-  budgetMs: 850,
+  // The share of a cell call's 1 s that a prediction may use, as for the other costly calls.
+  budgetMs: PREDICTION_BUDGET_MS,
 };
 
 /** Predicted microseconds for one pair over `rows` rows. */
@@ -92,15 +93,18 @@ const RANK_US_PER_CELL = 0.1;
  * `rankedColumns` of which are ranked once up front.
  */
 export function predictedMatrixMs(linearPairs: number, sortedPairs: number, rows: number, columns: number, rankedColumns = 0): number {
-  const cells = columns * rows * READ_US_PER_CELL + rankedColumns * rows * RANK_US_PER_CELL;
-  return (linearPairs * pairMicroseconds('linear', rows) + sortedPairs * pairMicroseconds('sorted', rows) + cells) / 1e3;
+  return (linearPairs * pairMicroseconds('linear', rows) + sortedPairs * pairMicroseconds('sorted', rows) + cellMicroseconds(columns, rankedColumns, rows)) / 1e3;
+}
+
+/** Microseconds for reading every cell and ranking `rankedColumns` columns once. */
+function cellMicroseconds(columns: number, rankedColumns: number, rows: number): number {
+  return columns * rows * READ_US_PER_CELL + rankedColumns * rows * RANK_US_PER_CELL;
 }
 
 /** Predicted milliseconds of a whole matrix of one cost kind. */
 function matrixMs(columns: number, rows: number, method: Method, kind: CostKind): number {
   const pairs = (columns * (columns - 1)) / 2;
-  const ranked = method === 'spearman' ? columns : 0;
-  return (pairs * pairMicroseconds(kind, rows) + columns * rows * READ_US_PER_CELL + ranked * rows * RANK_US_PER_CELL) / 1e3;
+  return (pairs * pairMicroseconds(kind, rows) + cellMicroseconds(columns, method === 'spearman' ? columns : 0, rows)) / 1e3;
 }
 
 function tooLarge(columns: number, rows: number, method: Method, kind: CostKind): StatsInputError {
