@@ -39,10 +39,15 @@ export function readEntry(typed: string | number | boolean | null): Entry {
   // As Excel (en-US) reads typed numbers with a percent sign, a currency sign or thousands separators: "5%" is
   // 0.05, "$1,234.50" is 1234.5, "-€5" is -5. (It also keeps a display format; the workbench shows the number.)
   const dressed = /^([+-]?)([$€£]?)(\d{1,3}(?:,\d{3})+|\d+)?(\.\d*)?(%?)$/.exec(trimmed);
-  if (dressed && (dressed[3] !== undefined || (dressed[4] !== undefined && dressed[4].length > 1)) && (dressed[2] || dressed[5] || (dressed[3] ?? '').includes(','))) {
-    const digits = `${dressed[3] ?? '0'}`.replace(/,/g, '') + (dressed[4] ?? '');
-    const magnitude = dressed[5] ? Number(digits) / 100 : Number(digits);
-    return { kind: 'value', value: dressed[1] === '-' ? -magnitude : magnitude };
+  if (dressed) {
+    const [, sign, currency, whole, fraction, percent] = dressed;
+    const hasDigits = whole !== undefined || (fraction !== undefined && fraction.length > 1);
+    const isDressed = currency !== '' || percent !== '' || (whole ?? '').includes(',');
+    if (hasDigits && isDressed) {
+      const digits = (whole ?? '0').replace(/,/g, '') + (fraction ?? '');
+      const magnitude = percent ? Number(digits) / 100 : Number(digits);
+      return { kind: 'value', value: sign === '-' ? -magnitude : magnitude };
+    }
   }
   const upper = trimmed.toUpperCase();
   if (upper === 'TRUE' || upper === 'FALSE') return { kind: 'value', value: upper === 'TRUE' };

@@ -69,6 +69,12 @@ function splitKey(key: string): [number, number] {
 
 export type ChangeListener = (areas: Area[]) => void;
 
+/** Whether the cell stored under `key` lies in `area` (its sheet aside). */
+function keyInside(key: string, area: Area): boolean {
+  const [r, c] = splitKey(key);
+  return r >= area.top && r <= area.bottom && c >= area.left && c <= area.right;
+}
+
 export class WorkbookModel implements CellSource {
   readonly sheets: SheetData[] = [];
   readonly tables: TableBlock[] = [];
@@ -177,8 +183,9 @@ export class WorkbookModel implements CellSource {
     for (const key of [...s.values.keys(), ...s.formulas.keys()]) {
       if (seen.has(key)) continue;
       seen.add(key);
+      if (!keyInside(key, area)) continue;
       const [r, c] = splitKey(key);
-      if (r >= area.top && r <= area.bottom && c >= area.left && c <= area.right) out.push({ row: r, column: c });
+      out.push({ row: r, column: c });
     }
     return out;
   }
@@ -186,19 +193,15 @@ export class WorkbookModel implements CellSource {
   clearArea(area: Area): boolean {
     const s = this.sheet(area.sheet);
     if (!s) return false;
-    const inside = (key: string): boolean => {
-      const [r, c] = splitKey(key);
-      return r >= area.top && r <= area.bottom && c >= area.left && c <= area.right;
-    };
     let changed = false;
     for (const key of [...s.values.keys()]) {
-      if (inside(key)) {
+      if (keyInside(key, area)) {
         s.values.delete(key);
         changed = true;
       }
     }
     for (const key of [...s.formulas.keys()]) {
-      if (inside(key)) {
+      if (keyInside(key, area)) {
         s.formulas.delete(key);
         changed = true;
         this.readsVersion++;
