@@ -12,6 +12,7 @@ import { PANEL_TEST_IDS } from '../panel-api';
 import { RelationshipView } from '../relationship';
 import { ChartBox, chartBox, legend, section, showMessage, tile, Tile } from '../widgets';
 import { describer, markFrame, pointsOf, pointTable } from './plot-points';
+import { PlanningLine } from './planning-line';
 import { VerdictCard } from './verdict-card';
 
 const LEVEL_OPTIONS = [
@@ -44,6 +45,7 @@ export class RelationshipSection {
   private readonly flaggedRows: HTMLElement;
   private readonly checksBody: HTMLElement;
   private readonly verdict = new VerdictCard();
+  private readonly planning = new PlanningLine();
 
   /**
    * @param picker the pair picker's element, placed at the top
@@ -88,6 +90,7 @@ export class RelationshipSection {
       this.flags,
       this.flaggedRows,
       el('details', { class: 'cv-details' }, [el('summary', { text: 'All eight checks' }), checksTable]),
+      this.planning.root,
       actions,
     ]);
     fill(body, [
@@ -135,6 +138,7 @@ export class RelationshipSection {
       : '';
 
     this.verdict.render(v.verdict, v.n, c.interval.level);
+    this.planning.render(v.n, 1 - c.interval.level, c.method);
     fill(this.reading, v.reading.map((t) => el('li', { text: t })));
     this.renderAdvice(v);
 
