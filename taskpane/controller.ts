@@ -22,6 +22,7 @@ import { cautionsSection } from './sections/cautions-section';
 import { CompareSection, DesignChoice } from './sections/compare-section';
 import { RelationshipSection } from './sections/relationship-section';
 import { ResidualsSection } from './sections/residuals-section';
+import { TableSection } from './sections/table-section';
 import { EngineWarmUp } from './warm-up';
 import { WriteSubject, writeActions } from './write-actions';
 import type { ColumnSource, NumericColumnRead, Workbook } from './workbook';
@@ -52,6 +53,7 @@ export class PanelController {
   readonly relationship: RelationshipSection;
   readonly residuals: ResidualsSection;
   readonly compare: CompareSection;
+  readonly table: TableSection;
   readonly compute: ComputeClient;
   readonly warmUp: EngineWarmUp;
   readonly scheduler: LiveScheduler;
@@ -126,7 +128,15 @@ export class PanelController {
     });
     this.residuals = new ResidualsSection(pick);
     this.compare = new CompareSection(this.secondPicker.element, this.state.design, (design) => this.set({ design }));
-    panel.append(this.relationship.root, this.residuals.root, this.compare.root, cautionsSection());
+    this.table = new TableSection({
+      wb,
+      main: () => (this.state.main && this.mainReads ? { choice: this.state.main, reads: this.mainReads } : null),
+      method: () => this.state.method,
+      level: () => this.state.level,
+      alpha: () => this.state.alpha,
+      pickPair: (c) => this.pickPair(c),
+    });
+    panel.append(this.relationship.root, this.residuals.root, this.compare.root, this.table.root, cautionsSection());
     this.setState('empty');
   }
 
@@ -170,6 +180,7 @@ export class PanelController {
     this.relationship.destroy();
     this.residuals.destroy();
     this.compare.destroy();
+    this.table.destroy();
     clear(this.root);
   }
 
@@ -186,6 +197,18 @@ export class PanelController {
     if (which === 'main') this.relationship.say(null);
     void this.rewatch();
     this.scheduler.now();
+  }
+
+  /** A pair picked elsewhere in the panel (a heatmap cell): shown in the picker and analysed at once. */
+  private pickPair(c: PairChoice): void {
+    this.picker.show(c);
+    this.choose('main', c);
+    // Where the answer appears: the Relationship heading takes the focus (and so scrolls into view).
+    const heading = this.relationship.root.querySelector('h2');
+    if (heading) {
+      heading.setAttribute('tabindex', '-1');
+      heading.focus();
+    }
   }
 
   /** A pick that cannot be used: the pair is dropped, and the result it replaced is cleared with the reason. */
@@ -367,6 +390,7 @@ export class PanelController {
 
       if (!(await this.refreshComparison(gen, reads, pairs))) return;
       lap('compare');
+      this.table.mainChanged();
 
       const ended = now();
       this.renders++;
