@@ -171,7 +171,10 @@ export class PointPlot {
         layout: { padding: 2 },
         scales: {
           x: { type: 'linear', title: { display: true, text: '', ...AXIS_TEXT }, ticks: { ...AXIS_TEXT }, grid: { color: PALETTE.grid } },
-          y: { type: 'linear', title: { display: true, text: '', ...AXIS_TEXT }, ticks: { ...AXIS_TEXT }, grid: { color: PALETTE.grid } },
+          // Every tick of the value axis is labelled (no automatic skipping, which could drop the 0 of a residual
+          // axis and keep -1 and 1), and at most six of them so the labels never crowd: ticks fall on multiples of
+          // one step, so an axis that spans zero always labels 0.
+          y: { type: 'linear', title: { display: true, text: '', ...AXIS_TEXT }, ticks: { ...AXIS_TEXT, autoSkip: false, maxTicksLimit: 6 }, grid: { color: PALETTE.grid } },
         },
         plugins: {
           tooltip: {
@@ -247,6 +250,12 @@ export class PointPlot {
     scales.x.title.text = content.xTitle;
     scales.y.title.text = content.yTitle;
     this.chart.update('none');
+  }
+
+  /** The values of the ticks labelled on an axis, as drawn. */
+  axisTicks(axis: 'x' | 'y'): number[] {
+    this.flush();
+    return this.chart.scales[axis].ticks.map((t) => t.value);
   }
 
   /** Page coordinates (client pixels) of the drawn point of a sheet row, or null when it is not drawn. */

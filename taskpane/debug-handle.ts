@@ -11,6 +11,7 @@ export function debugHandle(c: PanelController): PanelDebug {
     drawnRows: () => (c.current ? Array.from(c.current.drawn.rows) : []),
     flaggedRows: () => (c.current ? c.current.flaggedRows.slice() : []),
     pointOnScreen: (chart: PointChartName, row: number) => plots[chart].screenPosition(row),
+    axisTicks: (chart: PointChartName, axis: 'x' | 'y') => plots[chart].axisTicks(axis),
     summary: () => {
       const v = c.current;
       if (!v) return null;

@@ -41,6 +41,8 @@ export interface PanelDebug {
   flaggedRows(): number[];
   /** Client-pixel position of the point of a sheet row on a chart, or null when not drawn. */
   pointOnScreen(chart: PointChartName, row: number): { x: number; y: number } | null;
+  /** The values of the labelled ticks on an axis of a point chart, as drawn. */
+  axisTicks(chart: PointChartName, axis: 'x' | 'y'): number[];
   /** The figures shown in the Relationship section, or null before the first result. */
   summary(): { sheet: string; r: number; lower: number; upper: number; p: number; n: number; name: string; flags: string[] } | null;
   /** The figures shown in the Compare section, or null. */

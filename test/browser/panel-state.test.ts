@@ -204,13 +204,14 @@ describe('the panel at task-pane widths', () => {
       const limit = root.getBoundingClientRect().right + 1;
       root.querySelectorAll('*').forEach((e) => {
         const r = (e as HTMLElement).getBoundingClientRect();
-        if (r.width > 0 && r.right > limit && !(e as HTMLElement).closest('.cv-chart-table')) out.push(`${(e as HTMLElement).className || e.tagName}`);
+        // The chart tables and a heatmap wider than the pane scroll sideways inside their own region, by design.
+        if (r.width > 0 && r.right > limit && !(e as HTMLElement).closest('.cv-chart-table, .cv-heat-wrap')) out.push(`${(e as HTMLElement).className || e.tagName}`);
       });
       return { width: root.clientWidth, out: [...new Set(out)].slice(0, 10) };
     });
     expect(overflow.width).toBeLessThanOrEqual(width);
     expect(overflow.out).toEqual([]);
-    for (const id of ['section-relationship', 'section-residuals', 'section-compare']) {
+    for (const id of ['section-relationship', 'section-residuals', 'section-compare', 'section-table']) {
       const el = page().locator(`[data-testid="${id}"]`);
       await el.scrollIntoViewIfNeeded();
       const shot = await el.screenshot({ path: require('path').join(__dirname, '../../test-artifacts', `panel-${id}-${width}px.png`) });
