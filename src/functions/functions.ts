@@ -10,3 +10,4 @@ import './fn-checks';
 import './fn-compare';
 import './fn-planning';
 import './fn-evidence';
+import './fn-residuals';

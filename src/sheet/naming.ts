@@ -39,3 +39,26 @@ export function pointNaming(range: CellRange, address: string | undefined | null
 export function sheetRowNaming(rows: ArrayLike<number>): PointNaming {
   return { key: 'sheet-rows', name: (i) => `row ${rows[i]}` };
 }
+
+/** How pairs are numbered in a returned column: by sheet row, by sheet column (a row range), or by position. */
+export interface PointNumbering {
+  by: 'row' | 'column' | 'position';
+  /** Number of the cell at 0-based position k within the range: its sheet row, sheet column, or k + 1. */
+  number: (k: number) => number;
+}
+
+/**
+ * Numbers for pairs read from `range` whose address is `address`: sheet rows for a column range, sheet columns
+ * for a row range. Only an address that describes a block of exactly the range's shape is trusted (a whole
+ * column "B:B" with its 1,048,576 cells is one); anything else, or no address, gives positions 1, 2, 3 ...
+ */
+export function pointNumbering(range: CellRange, address: string | undefined | null): PointNumbering {
+  const position: PointNumbering = { by: 'position', number: (k) => k + 1 };
+  const block = typeof address === 'string' ? parseBlock(address) : null;
+  if (!block || !Array.isArray(range) || range.length === 0 || !Array.isArray(range[0])) return position;
+  const rows = range.length;
+  const cols = range[0].length;
+  if (block.lastRow - block.firstRow + 1 !== rows || block.lastColumn - block.firstColumn + 1 !== cols) return position;
+  if (rows === 1 && cols > 1) return { by: 'column', number: (k) => block.firstColumn + k };
+  return { by: 'row', number: (k) => block.firstRow + k };
+}

@@ -15,7 +15,7 @@
  * Needs `npm run build` first.
  */
 import fc from 'fast-check';
-import { answerDifferences } from './support/compare';
+import { answerDifferences, close } from './support/compare';
 import { optionWords, takesBlock } from './support/cells';
 import { cleanColumns, col, permutation } from './support/data';
 import { callCell, describeOutcome, FunctionMeta, Outcome, requireFunction } from './support/registry';
@@ -254,6 +254,61 @@ describe('rescaling a column by a power of two', () => {
           return c.map((v) => v * s);
         });
         expectNone(outcomeDifferences(id, callCell(id, call.args), callCell(id, scaled), 1e-9, 1e-13), `${id} scaled by 2^${JSON.stringify(flat)}`);
+      }),
+      { numRuns: Math.ceil(RUNS / 2) },
+    );
+  });
+});
+
+/**
+ * RESIDUALS names each pair's sheet row and carries y's unit, so it is in neither list above; its own forms of the
+ * same properties: a shuffle of the rows moves each pair's fitted value and residual with it (the sheet rows stay
+ * in order), and x * 2^a, y * 2^b multiply every fitted value and residual by 2^b exactly. Tolerance 1e-9
+ * relative, plus 1e-12 of the largest |y| (a residual of an exact line is rounding noise around 0).
+ */
+describe('RESIDUALS', () => {
+  requireFunction('RESIDUALS');
+  const at = (n: number) => ({ parameterAddresses: [`Sheet1!B2:B${n + 1}`, `Sheet1!C2:C${n + 1}`], address: 'Sheet1!H2' });
+  const block = (o: Outcome): number[][] | null => (o.kind === 'value' ? (o.value as number[][]) : null);
+  /** Differences between `got` and `want`, row by row: the sheet row exactly, fitted and residual within tolerance. */
+  function rowDifferences(got: number[][], want: number[][], yScale: number): string[] {
+    if (got.length !== want.length) return [`${got.length} rows vs ${want.length}`];
+    const out: string[] = [];
+    got.forEach((r, i) => {
+      if (r[0] !== want[i][0]) out.push(`row ${i}: sheet row ${r[0]} vs ${want[i][0]}`);
+      for (const j of [1, 2]) if (!close(r[j], want[i][j], 1e-9, 1e-12 * yScale)) out.push(`row ${i} column ${j}: ${r[j]} vs ${want[i][j]}`);
+    });
+    return out;
+  }
+  const top = (y: number[]) => Math.max(...y.map(Math.abs));
+
+  test('a shuffle of the rows moves each fitted value and residual with its pair', () => {
+    fc.assert(
+      fc.property(cleanColumns(2, 6, 40).chain(([x, y]) => fc.tuple(fc.constant([x, y] as const), permutation(x.length))), ([[x, y], perm]) => {
+        const n = x.length;
+        const a = callCell('RESIDUALS', [col(x), col(y), at(n)]);
+        const b = callCell('RESIDUALS', [col(perm.map((k) => x[k])), col(perm.map((k) => y[k])), at(n)]);
+        const ra = block(a);
+        const rb = block(b);
+        if (!ra || !rb) return expectNone(sameOutcome(a, b, 0, 0), 'RESIDUALS refusals');
+        const moved = perm.map((k, i) => [ra[i][0], ra[k][1], ra[k][2]]);
+        expectNone(rowDifferences(rb, moved, top(y)), `RESIDUALS rows ${JSON.stringify(perm)}`);
+      }),
+      { numRuns: Math.ceil(RUNS / 2) },
+    );
+  });
+
+  test('x * 2^a and y * 2^b, |a|, |b| <= 900: every fitted value and residual times 2^b', () => {
+    fc.assert(
+      fc.property(cleanColumns(2, 6, 40), exponentsFor(2), ([x, y], [ka, kb]) => {
+        const n = x.length;
+        const a = callCell('RESIDUALS', [col(x), col(y), at(n)]);
+        const b = callCell('RESIDUALS', [col(x.map((v) => v * 2 ** ka)), col(y.map((v) => v * 2 ** kb)), at(n)]);
+        const ra = block(a);
+        const rb = block(b);
+        if (!ra || !rb) return expectNone(sameOutcome(a, b, 0, 0), 'RESIDUALS refusals');
+        const s = 2 ** kb;
+        expectNone(rowDifferences(rb, ra.map((r) => [r[0], r[1] * s, r[2] * s]), top(y) * s), `RESIDUALS scaled by 2^${ka}, 2^${kb}`);
       }),
       { numRuns: Math.ceil(RUNS / 2) },
     );

@@ -160,6 +160,49 @@ function reportTable(value: unknown): string[] {
   return out;
 }
 
+/** The cells of a single-row or single-column range, in order (the rows and columns the functions pair). */
+function vectorCells(range: unknown): unknown[] {
+  if (!Array.isArray(range)) return [];
+  const rows = range as unknown[][];
+  return rows.length === 1 && Array.isArray(rows[0]) ? rows[0] : rows.map((r) => (Array.isArray(r) ? r[0] : undefined));
+}
+
+/**
+ * RESIDUALS: one row per complete pair (both cells finite numbers), in order, three numbers each: a whole number
+ * that increases down the block (sheet row, sheet column or position), the fitted value and the residual, which
+ * add up to y (within rounding of the largest |y|) and sum to about 0.
+ */
+function residualBlock(value: unknown, args: unknown[]): string[] {
+  if (!Array.isArray(value)) return ['RESIDUALS answered a scalar'];
+  const rows = value as unknown[][];
+  const xs = vectorCells(args[0]);
+  const ys = vectorCells(args[1]);
+  const used: number[] = [];
+  xs.forEach((v, i) => {
+    const w = ys[i];
+    if (isNum(v) && Number.isFinite(v) && isNum(w) && Number.isFinite(w)) used.push(w);
+  });
+  if (rows.length !== used.length) return [`${rows.length} rows for ${used.length} complete pairs`];
+  const out: string[] = [];
+  const top = Math.max(...used.map(Math.abs));
+  let sum = 0;
+  let size = 0;
+  rows.forEach((r, i) => {
+    if (out.length > 3) return;
+    const [at, fitted, residual] = r;
+    if (r.length !== 3 || !isNum(at) || !isNum(fitted) || !isNum(residual)) {
+      out.push(`row ${i} is ${JSON.stringify(r)}, not three numbers`);
+      return;
+    }
+    if (!(Number.isInteger(at) && at >= 1 && (i === 0 || at > (rows[i - 1][0] as number)))) out.push(`row ${i}: ${at} does not follow ${String(rows[i - 1]?.[0])}`);
+    if (Math.abs(fitted + residual - used[i]) > 1e-12 * top) out.push(`row ${i}: fitted ${fitted} + residual ${residual} is not y = ${used[i]}`);
+    sum += residual;
+    size = Math.max(size, Math.abs(fitted) + Math.abs(residual));
+  });
+  if (out.length === 0 && Math.abs(sum) > 1e-9 * rows.length * size) out.push(`the residuals sum to ${sum}`);
+  return out;
+}
+
 export const OUTPUT_ROLES: Record<string, RoleCheck> = {
   // @returns The coefficient, between -1 and 1.
   COEF: (v) => inUnit(v, 'coefficient'),
@@ -225,6 +268,8 @@ export const OUTPUT_ROLES: Record<string, RoleCheck> = {
     if (typeof words !== 'string' || !/applicant group/.test(words)) out.push(`steps ${String(words)}`);
     return out;
   },
+  // @returns One row per pair used: where it sits, the fitted value, the residual.
+  RESIDUALS: residualBlock,
   // @returns The power, between 0 and 1.
   POWER: (v) => probability(v, 'power'),
   // @returns The number of rows (pairs of values), a whole number.

@@ -33,6 +33,7 @@ export const EXPECTED_FUNCTIONS = [
   'NEGLIGIBLE', 'BAYES', 'BAYES_REPORTED', 'CORRECTED',
   'DIFF_GROUPS', 'DIFF_SHARED', 'DIFF_SEPARATE', 'DIFF_REPORTED', 'PARTIAL', 'MATRIX',
   'POWER', 'SAMPLE_SIZE', 'DETECTABLE',
+  'RESIDUALS',
 ] as const;
 
 /** The metadata of a function that must be registered; throws (failing the test that asked) when it is not. */
