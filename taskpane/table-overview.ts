@@ -7,6 +7,7 @@ import { correlationMatrix, CorrelationMatrix } from '../src/stats/compare/matri
 import { partialCorrelation } from '../src/stats/compare/partial';
 import { correlate } from '../src/stats/correlation/correlate';
 import { isClassical, Method, StatsInputError } from '../src/stats/types';
+import { formatR } from '../src/stats/format';
 import type { NumericColumnRead } from './workbook';
 
 /** A column of the table as read, with its place in the table. */
@@ -108,12 +109,12 @@ export function heatStep(r: number): HeatStep {
   return { sign: r < 0 ? 'neg' : 'pos', level: level as HeatStep['level'] };
 }
 
-/** A coefficient for a heatmap cell: two decimals without the leading zero, and a true minus sign. */
+/**
+ * A coefficient for a heatmap cell: formatR's digits (two decimals, more where two would show a small value as
+ * zero or a value short of 1 as 1) without the leading zero, so the cell's text is part of its spoken label.
+ */
 export function cellText(r: number): string {
-  if (!Number.isFinite(r)) return '–';
-  const s = Math.abs(r).toFixed(2);
-  const t = s === '1.00' && Math.abs(r) < 1 ? '.99' : s.replace(/^0/, '');
-  return r < 0 && t !== '.00' ? `\u2212${t}` : t;
+  return formatR(r).replace(/^(\u2212?)0\./, '$1.');
 }
 
 export interface PartialView {

@@ -440,6 +440,6 @@ function heatLegend(): HTMLElement {
   const limits = HEAT_LIMITS.join(', ');
   return el('div', { class: 'cv-heat-legend', testid: 'heatmap-legend' }, [
     el('span', { class: 'cv-heat-scale', attrs: { 'aria-hidden': 'true' } }, [el('span', { text: '\u22121' }), ...steps, el('span', { text: '+1' })]),
-    el('span', { class: 'cv-heat-key', text: `Darker is stronger (steps at ${limits}); blue-green positive, brown and striped negative; a thick frame marks a Holm-adjusted p below the checks\u2019 alpha.` }),
+    el('span', { class: 'cv-heat-key', text: `The further a cell stands from the background, the stronger (steps at ${limits}); blue-green positive, brown and striped negative; a thick frame marks a Holm-adjusted p below the checks\u2019 alpha.` }),
   ]);
 }

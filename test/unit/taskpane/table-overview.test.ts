@@ -125,7 +125,7 @@ describe('the colour scale and the cell text', () => {
     expect(heatStep(0.55)).toEqual({ sign: 'pos', level: 3 });
   });
 
-  test('two decimals, a true minus, and nothing short of 1 shown as 1', () => {
-    expect([0.62, -0.41, -0.004, 0.996, 1, Number.NaN].map(cellText)).toEqual(['.62', '\u2212.41', '.00', '.99', '1.00', '–']);
+  test('two decimals without the leading zero, a true minus, a small value never shown as zero nor one short of 1 as 1', () => {
+    expect([0.62, -0.41, -0.004, 0.996, 1, Number.NaN].map(cellText)).toEqual(['.62', '\u2212.41', '\u2212.004', '.996', '1.00', '–']);
   });
 });
