@@ -29,8 +29,23 @@ import {
 
 Chart.register(ScatterController, LineController, PointElement, LineElement, LinearScale, Tooltip);
 
-/** Colours, kept equal to the custom properties at the top of panel.css. */
-export const PALETTE = {
+/** The colours a chart paints with. */
+export interface Palette {
+  accent: string;
+  point: string;
+  flagFill: string;
+  flagEdge: string;
+  smooth: string;
+  reference: string;
+  grid: string;
+  text: string;
+  /** The fill inside hollow markers: the surface the chart sits on. */
+  surface: string;
+}
+
+/** The light theme's colours, kept equal to the custom properties at the top of panel.css (used where the page
+ *  gives none, e.g. a canvas not in the document). */
+export const PALETTE: Palette = {
   accent: '#0f6b73',
   // 75% opaque: 3.7:1 against white on its own (WCAG 2.1 non-text contrast asks 3:1; at 50% it was 2.2:1).
   point: 'rgba(15, 107, 115, 0.75)',
@@ -40,7 +55,45 @@ export const PALETTE = {
   reference: '#8a8a8a',
   grid: '#ececec',
   text: '#3b3b3b',
+  surface: '#ffffff',
 };
+
+const PALETTE_PROPERTIES: Record<keyof Palette, string> = {
+  accent: '--cv-accent',
+  point: '--cv-chart-point',
+  flagFill: '--cv-flag',
+  flagEdge: '--cv-flag-edge',
+  smooth: '--cv-chart-smooth',
+  reference: '--cv-chart-reference',
+  grid: '--cv-chart-grid',
+  text: '--cv-chart-text',
+  surface: '--cv-surface',
+};
+
+/** The colours where a canvas sits, from the panel's custom properties (so a chart follows the light or dark
+ *  theme of its pane), each falling back to the light palette. */
+export function paletteOf(canvas: HTMLCanvasElement): Palette {
+  const style = canvas.isConnected ? getComputedStyle(canvas) : null;
+  const out = { ...PALETTE };
+  if (!style) return out;
+  for (const key of Object.keys(PALETTE_PROPERTIES) as (keyof Palette)[]) {
+    const v = style.getPropertyValue(PALETTE_PROPERTIES[key]).trim();
+    if (v) out[key] = v;
+  }
+  return out;
+}
+
+type AxisOptions = { ticks?: { color?: string }; title?: { color?: string }; grid?: { color?: string } };
+
+/** Sets the text and grid colours of a chart's axes (Chart.js keeps them in the options). */
+function paintAxes(chart: Chart, c: Palette): void {
+  (chart.options as { color?: string }).color = c.text;
+  for (const axis of Object.values(chart.options.scales ?? {}) as AxisOptions[]) {
+    if (axis.ticks) axis.ticks.color = c.text;
+    if (axis.title) axis.title.color = c.text;
+    if (axis.grid && axis.grid.color !== undefined) axis.grid.color = c.grid;
+  }
+}
 
 const FONT_STACK = "'Segoe UI', 'Segoe UI Web (West European)', -apple-system, BlinkMacSystemFont, Roboto, 'Helvetica Neue', sans-serif";
 
@@ -92,13 +145,13 @@ export function pointRadius(count: number): number {
   return count > 1000 ? 2 : count > 200 ? 2.6 : 3.6;
 }
 
-function lineDataset(l: PlotLine): LineDataset {
+function lineDataset(l: PlotLine, c: Palette): LineDataset {
   const style =
     l.kind === 'fit'
-      ? { borderColor: PALETTE.accent, borderWidth: 2, borderDash: [] as number[] }
+      ? { borderColor: c.accent, borderWidth: 2, borderDash: [] as number[] }
       : l.kind === 'smooth'
-        ? { borderColor: PALETTE.smooth, borderWidth: 1.6, borderDash: [6, 4] }
-        : { borderColor: PALETTE.reference, borderWidth: 1, borderDash: [3, 3] };
+        ? { borderColor: c.smooth, borderWidth: 1.6, borderDash: [6, 4] }
+        : { borderColor: c.reference, borderWidth: 1, borderDash: [3, 3] };
   return {
     type: 'line',
     label: l.label,
@@ -113,7 +166,7 @@ function lineDataset(l: PlotLine): LineDataset {
   };
 }
 
-function pointDatasets(points: PlotPoint[]): PointDataset[] {
+function pointDatasets(points: PlotPoint[], c: Palette): PointDataset[] {
   const plain = points.filter((p) => p.flags === 0);
   const flagged = points.filter((p) => p.flags !== 0);
   const r = pointRadius(points.length);
@@ -126,7 +179,7 @@ function pointDatasets(points: PlotPoint[]): PointDataset[] {
       pointRadius: r,
       pointHoverRadius: r + 2,
       pointHitRadius: 3,
-      backgroundColor: PALETTE.point,
+      backgroundColor: c.point,
       borderWidth: 0,
       order: 3,
     },
@@ -138,8 +191,8 @@ function pointDatasets(points: PlotPoint[]): PointDataset[] {
       pointRadius: 6,
       pointHoverRadius: 8,
       pointHitRadius: 4,
-      backgroundColor: PALETTE.flagFill,
-      borderColor: PALETTE.flagEdge,
+      backgroundColor: c.flagFill,
+      borderColor: c.flagEdge,
       borderWidth: 1.5,
       order: 1,
     },
@@ -245,7 +298,9 @@ export class PointPlot {
     const content = this.content;
     if (!content) return;
     const data = this.chart.data as { datasets: (PointDataset | LineDataset)[] };
-    data.datasets = [...pointDatasets(content.points), ...content.lines.map(lineDataset)];
+    const c = paletteOf(this.chart.canvas);
+    paintAxes(this.chart, c);
+    data.datasets = [...pointDatasets(content.points, c), ...content.lines.map((l) => lineDataset(l, c))];
     const scales = this.chart.options.scales as Record<'x' | 'y', { title: { text: string } }>;
     scales.x.title.text = content.xTitle;
     scales.y.title.text = content.yTitle;
@@ -323,16 +378,18 @@ export class IntervalPlot {
 
   update(rows: IntervalRow[]): void {
     this.labels = rows.map((r) => r.label);
+    const c = paletteOf(this.chart.canvas);
+    paintAxes(this.chart, c);
     const datasets: ChartDataset<'line', XY[]>[] = [];
     const finite = rows.filter((r) => Number.isFinite(r.lower) && Number.isFinite(r.upper));
     const lo = Math.min(-0.1, ...finite.map((r) => r.lower));
     const hi = Math.max(0.1, ...finite.map((r) => r.upper));
     datasets.push({
       type: 'line', label: 'zero', data: [{ x: 0, y: -0.5 }, { x: 0, y: rows.length - 0.5 }],
-      borderColor: PALETTE.reference, borderWidth: 1, borderDash: [3, 3], pointRadius: 0,
+      borderColor: c.reference, borderWidth: 1, borderDash: [3, 3], pointRadius: 0,
     });
     rows.forEach((r, i) => {
-      const colour = r.kind === 'difference' ? PALETTE.smooth : PALETTE.accent;
+      const colour = r.kind === 'difference' ? c.smooth : c.accent;
       datasets.push({
         type: 'line', label: `${r.label} interval`, data: [{ x: r.lower, y: i }, { x: r.upper, y: i }],
         borderColor: colour, borderWidth: 2, pointStyle: 'line', pointRotation: 90, pointRadius: 5,
@@ -341,7 +398,7 @@ export class IntervalPlot {
       datasets.push({
         type: 'line', label: r.label, data: [{ x: r.estimate, y: i }], showLine: false,
         pointStyle: r.kind === 'difference' ? 'rect' : 'circle', pointRadius: 5,
-        pointBackgroundColor: '#ffffff', pointBorderColor: colour, pointBorderWidth: 2,
+        pointBackgroundColor: c.surface, pointBorderColor: colour, pointBorderWidth: 2,
       });
     });
     this.chart.data.datasets = datasets as ChartDataset[];

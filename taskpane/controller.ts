@@ -23,6 +23,7 @@ import { CompareSection, DesignChoice } from './sections/compare-section';
 import { RelationshipSection } from './sections/relationship-section';
 import { ResidualsSection } from './sections/residuals-section';
 import { TableSection } from './sections/table-section';
+import { applyTheme, PanelTheme } from './theme';
 import { EngineWarmUp } from './warm-up';
 import { WriteSubject, writeActions } from './write-actions';
 import type { ColumnSource, NumericColumnRead, Workbook } from './workbook';
@@ -101,6 +102,7 @@ export class PanelController {
     });
 
     clear(root);
+    applyTheme(root, opts.theme ?? 'light');
     this.status = el('div', { class: 'cv-status', testid: PANEL_TEST_IDS.status, attrs: { role: 'status', 'aria-live': 'polite' } });
     this.progress = el('div', { class: 'cv-progress cv-hidden', testid: PANEL_TEST_IDS.progress, attrs: { role: 'progressbar', 'aria-label': 'Computing' } }, [
       el('div', { class: 'cv-progress-bar' }),
@@ -146,6 +148,12 @@ export class PanelController {
     return { method, level, alpha, drawLimit };
   }
 
+  /** A new theme: the colours change with the class; the charts, painted on canvases, are drawn again. */
+  setTheme(theme: PanelTheme): void {
+    applyTheme(this.root, theme);
+    this.scheduler.now();
+  }
+
   /** Starts from the options' pairs, or from the current selection, and begins following the workbook. */
   async start(): Promise<void> {
     if (this.opts.initial) {
@@ -182,6 +190,8 @@ export class PanelController {
     this.compare.destroy();
     this.table.destroy();
     clear(this.root);
+    this.root.classList.remove('cv-theme-dark');
+    this.root.removeAttribute('data-theme');
   }
 
   // ---- choices ------------------------------------------------------------------------------------------------

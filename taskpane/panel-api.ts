@@ -5,6 +5,7 @@
 import type { Design } from './design';
 import type { PairChoice } from './pair-picker';
 import type { Method } from '../src/stats/types';
+import type { PanelTheme } from './theme';
 
 export interface PanelOptions {
   /** Pair to show at once (e.g. the workbench's demo pair). Without it the panel tries the current selection. */
@@ -26,6 +27,8 @@ export interface PanelOptions {
   workerThreshold?: number;
   /** Write A1 references even for table columns (for hosts without structured references). */
   a1References?: boolean;
+  /** Light or dark (default light): the host's theme (theme.ts). */
+  theme?: PanelTheme;
   /** Publish the read-only debug handle as window.__covaryPanel (default true). */
   publishDebugHandle?: boolean;
 }
@@ -58,6 +61,8 @@ export interface PanelDebug {
 
 export interface PanelHandle {
   debug: PanelDebug;
+  /** Changes the theme and repaints the charts in it. */
+  setTheme(theme: PanelTheme): void;
   /** Re-reads and redraws now. */
   refresh(): Promise<void>;
   /** Stops watching, removes the panel's DOM and charts. */

@@ -35,6 +35,7 @@ export function mountPanel(root: HTMLElement, wb: Workbook, opts: PanelOptions =
       controller.scheduler.now();
       await debug.whenIdle();
     },
+    setTheme: (theme) => controller.setTheme(theme),
     destroy: () => controller.destroy(),
   };
 }

@@ -2,6 +2,7 @@
  * The panel's small building blocks: a section with its heading, a statistic tile, a chart frame, the legend of
  * the point charts, and a message box that hides when empty. All DOM through dom.ts (text, never markup).
  */
+import { paletteOf } from './charts';
 import { el } from './dom';
 
 /** A numbered section: the root to place and the body to fill. */
@@ -45,14 +46,15 @@ export interface ChartBox {
   describeData(data: ChartData): void;
 }
 
-/** The canvas on white (the panel's charts draw on a transparent canvas), as a PNG. */
+/** The canvas on the pane's own surface colour (the panel's charts draw on a transparent canvas; the light theme's
+ *  white, the dark theme's dark grey, so the axis text keeps its contrast), as a PNG. */
 export function chartPicture(canvas: HTMLCanvasElement): Promise<Blob> {
   const out = document.createElement('canvas');
   out.width = canvas.width;
   out.height = canvas.height;
   const g = out.getContext('2d');
   if (!g) return Promise.reject(new Error('this browser cannot draw the picture'));
-  g.fillStyle = '#ffffff';
+  g.fillStyle = paletteOf(canvas).surface;
   g.fillRect(0, 0, out.width, out.height);
   g.drawImage(canvas, 0, 0);
   return new Promise((resolve, reject) => out.toBlob((b) => (b ? resolve(b) : reject(new Error('the picture could not be made'))), 'image/png'));

@@ -3,6 +3,7 @@
  * against repairs, picked by table header) with the same pair in the South region ready in Compare.
  */
 import { mountPanel, PanelHandle } from '../taskpane/panel';
+import type { PanelTheme } from '../taskpane/theme';
 import type { Workbook } from '../taskpane/workbook';
 
 export const DEMO_PAIR = {
@@ -15,9 +16,9 @@ export const DEMO_COMPARE_PAIR = {
   y: { kind: 'table', table: 'SouthWorkshops', column: 'Repairs per week', position: 2 },
 } as const;
 
-export function mountPanelInWorkbench(root: HTMLElement, workbook: Workbook): PanelHandle | null {
+export function mountPanelInWorkbench(root: HTMLElement, workbook: Workbook, theme: PanelTheme = 'light'): PanelHandle | null {
   try {
-    return mountPanel(root, workbook, { initial: DEMO_PAIR, initialCompare: DEMO_COMPARE_PAIR });
+    return mountPanel(root, workbook, { initial: DEMO_PAIR, initialCompare: DEMO_COMPARE_PAIR, theme });
   } catch (e) {
     const note = document.createElement('div');
     note.className = 'wb-panel-placeholder';

@@ -77,7 +77,12 @@ function start(): void {
     document.body.dataset.ready = 'true';
   });
 
-  mountPanelInWorkbench(panelRoot, workbook);
+  // The pane theme stands in for the host's Office theme: chosen in the header, or ?theme=dark in the address.
+  const themeSelect = document.getElementById('wb-theme') as HTMLSelectElement | null;
+  const asked = new URLSearchParams(location.search).get('theme') === 'dark' ? 'dark' : 'light';
+  if (themeSelect) themeSelect.value = asked;
+  const panel = mountPanelInWorkbench(panelRoot, workbook, asked);
+  themeSelect?.addEventListener('change', () => panel?.setTheme(themeSelect.value === 'dark' ? 'dark' : 'light'));
   const targets = () => view.focusTargets();
   installRegionKeys(document, [
     { name: 'formula bar', contains: (e) => !!e && e.closest('.wb-bar') !== null, entry: () => targets().bar },

@@ -80,7 +80,7 @@ export class VerdictCard {
       const found = `With ${formatCount(n)} rows a correlation of ${d} or stronger is found 8 times in 10 (alpha ${Number((1 - level).toPrecision(3))})`;
       if (v.direction === 'none') items.push(`${found}; weaker ones are easily missed, so "${pct} includes zero" is not "no relationship".`);
       else if (v.detectable < 0.1) items.push(`${found}: at this size even a trivial correlation is significant, so judge it by its size and interval, not by its p-value.`);
-      else items.push(`${found}; weaker ones are easily missed.`);
+      // Otherwise the planning line below the checks gives the figure, with more beside it.
     }
     if (v.tooFew > 0) items.push(`${v.tooFew} of the eight checks had too few rows to tell: see the checks below.`);
     fill(this.evidence, items.map((t) => el('li', { text: t })));

@@ -190,8 +190,48 @@ describe('pictures that leave the pane, and their numbers in words', () => {
   });
 });
 
-describe('the panel at task-pane widths', () => {
-  test.each([320, 1000])('at %i px nothing runs off the side, and every section is drawn', async (width) => {
+/** The workbench's pane theme switch (it stands in for the host's Office theme); waits for the redraw. */
+async function setTheme(theme: string): Promise<void> {
+  if ((await testid('wb-theme').inputValue()) === theme) return;
+  await afterRedraw(() => testid('wb-theme').selectOption(theme));
+  await expect(testid('panel-root').getAttribute('data-theme')).resolves.toBe(theme);
+}
+
+/** Brings the table section into view (it draws only near the screen) and waits for its first drawing. */
+async function tableSectionDrawn(): Promise<void> {
+  await testid('section-table').scrollIntoViewIfNeeded();
+  await page().waitForFunction(() => Number(document.querySelector('[data-testid="section-table"]')?.getAttribute('data-render-count') ?? 0) > 0, undefined, { timeout: 30000 });
+  await panelIdle(page());
+}
+
+describe('the dark theme', () => {
+  test('the charts repaint in the dark palette: the points take its teal and none keeps the light one', async () => {
+    /** Pixels of the scatter, mostly opaque, within 12 of a colour on every channel. */
+    const count = (hex: string) => page().evaluate((h) => {
+      const canvas = document.querySelector('[data-testid="chart-scatter"]') as HTMLCanvasElement;
+      const data = canvas.getContext('2d')!.getImageData(0, 0, canvas.width, canvas.height).data;
+      const want = [1, 3, 5].map((i) => parseInt(h.slice(i, i + 2), 16));
+      let n = 0;
+      for (let i = 0; i < data.length; i += 4) {
+        if (data[i + 3] > 150 && want.every((w, k) => Math.abs(data[i + k] - w) <= 12)) n++;
+      }
+      return n;
+    }, hex);
+    // The point colours of panel.css: light #0f6b73 at 75%, dark #4cc2c9 opaque.
+    // (getImageData gives colours unpremultiplied, so a 75% point reads as its own colour at alpha 191.)
+    await setTheme('light');
+    expect(await count('#0f6b73')).toBeGreaterThan(200);
+    await setTheme('dark');
+    expect(await count('#4cc2c9')).toBeGreaterThan(200);
+    expect(await count('#0f6b73')).toBe(0);
+    await setTheme('light');
+  });
+});
+
+describe('the panel at task-pane widths, in both themes', () => {
+  test.each([[320, 'light'], [1000, 'light'], [320, 'dark'], [1000, 'dark']])('at %i px, %s: nothing runs off the side, and every section is drawn', async (width, theme) => {
+    await setTheme(theme as string);
+    await tableSectionDrawn();
     await page().evaluate((w) => {
       const main = document.querySelector('.wb-main') as HTMLElement;
       main.style.gridTemplateColumns = `minmax(0, 1fr) ${w}px`;
@@ -214,7 +254,7 @@ describe('the panel at task-pane widths', () => {
     for (const id of ['section-relationship', 'section-residuals', 'section-compare', 'section-table']) {
       const el = page().locator(`[data-testid="${id}"]`);
       await el.scrollIntoViewIfNeeded();
-      const shot = await el.screenshot({ path: require('path').join(__dirname, '../../test-artifacts', `panel-${id}-${width}px.png`) });
+      const shot = await el.screenshot({ path: require('path').join(__dirname, '../../test-artifacts', `panel-${id}-${width}px-${theme}.png`) });
       expect(shot.length).toBeGreaterThan(3000);
     }
   });
@@ -241,7 +281,9 @@ describe('accessibility of the panel (WCAG 2.1 AA, checked by axe-core)', () => 
     expect(ring).toEqual({ id: 'main-mode-table', outline: 'solid 2px', clippers: [] });
   });
 
-  test('axe-core reports no violations in the panel', async () => {
+  test.each(['light', 'dark'])('axe-core reports no violations in the panel, %s theme', async (theme) => {
+    await setTheme(theme);
+    await tableSectionDrawn();
     // Every folded part opened, so the checker sees all of the panel's text.
     await page().evaluate(() => document.querySelectorAll('[data-testid="panel-root"] details').forEach((d) => ((d as HTMLDetailsElement).open = true)));
     // Evaluated through the debugging protocol, which the page's Content-Security-Policy does not govern (a
