@@ -313,7 +313,9 @@ export class ExcelWorkbook implements Workbook {
     const xb = parseAddress(spec.x);
     const yb = parseAddress(spec.y);
     const at = parseAddress(spec.at, sheetName);
+    const to = spec.to === undefined ? undefined : parseAddress(spec.to, sheetName);
     if (!xb || xb.length !== 1 || !yb || yb.length !== 1 || !at || at.length !== 1) throw new Error('a chart needs one block for x, one for y and a cell to sit on');
+    if (to !== undefined && (!to || to.length !== 1)) throw new Error(`${spec.to} is not a cell for the chart's corner`);
     await Excel.run(async (context) => {
       const book = context.workbook.worksheets;
       const sheet = book.getItem(sheetName);
@@ -327,7 +329,8 @@ export class ExcelWorkbook implements Workbook {
       if (spec.trendline) series.trendlines.add('Linear');
       chart.axes.categoryAxis.title.text = spec.xTitle;
       chart.axes.valueAxis.title.text = spec.yTitle;
-      chart.setPosition(localReference(at[0]));
+      if (to) chart.setPosition(localReference(at[0]), localReference(to[0]));
+      else chart.setPosition(localReference(at[0]));
       await context.sync();
     });
   }

@@ -4,7 +4,7 @@
  * closed. Pure: builds cell blocks and addresses; the panel writes them through the Workbook interface.
  */
 import { CellBlock, formatBlock } from '../src/sheet/a1';
-import type { ColumnSource } from './workbook';
+import type { ColumnSource, ReportChartSpec } from './workbook';
 import type { Design } from './design';
 import { Method, METHOD_LABELS } from '../src/stats/types';
 import { Entry, formulaEntry, textEntry } from '../src/sheet/entries';
@@ -121,7 +121,8 @@ const CHECKS_ROWS = 9;
 /**
  * The report sheet: a title, the data used, the cautions, then the COVARY.REPORT summary (spilling two columns)
  * and, beside it from column D, the COVARY.CHECKS table and below that the COVARY.SENSITIVITY table (does the
- * conclusion hold). References carry their sheet (the report is on a new sheet). Every text is entered as text
+ * conclusion hold); far right, the COVARY.RESIDUALS block that the residual charts read (RESIDUAL_BLOCK).
+ * References carry their sheet (the report is on a new sheet). Every text is entered as text
  * (src/sheet/entries.ts), so a header that begins with "=" cannot become a formula.
  */
 /** Pair B of the panel's comparison, for the report: its columns, the design and (shared) which column is common. */
@@ -137,11 +138,67 @@ export interface ReportComparison {
 /** Rows of the report above which the comparison may start: REPORT spills up to 24 rows from row 10. */
 const COMPARISON_ROW = 36;
 
+/**
+ * The residual block of the report sheet, for its residual charts: headers in W1:Y1 and the COVARY.RESIDUALS
+ * formula in W2, which spills one row per pair used (sheet row, fitted value, residual) down columns W to Y.
+ * Clear of everything else on the report: the tables use A-K (REPORT A-B, CHECKS and SENSITIVITY spill from D
+ * over eight columns), the comparison A-D, and the three charts M-T (REPORT_CHART_PLACES).
+ */
+export const RESIDUAL_BLOCK = { firstColumn: 23, headerRow: 1, formulaRow: 2 } as const;
+export const RESIDUAL_HEADERS = ['Sheet row', 'Fitted value', 'Residual'] as const;
+
+/** Where the report's three charts sit, one below the other in columns M-T (top-left and bottom-right cells). */
+export const REPORT_CHART_PLACES = [
+  { at: 'M2', to: 'T17' },
+  { at: 'M19', to: 'T34' },
+  { at: 'M36', to: 'T51' },
+] as const;
+
+/** Complete pairs of two columns as read (NaN marks a cell that does not count): the rows RESIDUALS spills. */
+export function completePairCount(x: Float64Array, y: Float64Array): number {
+  const n = Math.min(x.length, y.length);
+  let k = 0;
+  for (let i = 0; i < n; i++) if (x[i] === x[i] && y[i] === y[i]) k++;
+  return k;
+}
+
+/**
+ * The report sheet's cells that the RESIDUALS spill fills for `pairs` pairs, one address per column, with the
+ * sheet: exactly the spill's rows, so a chart bound to them shows every residual and nothing else.
+ */
+export function residualCells(sheet: string, pairs: number): { rows: string; fitted: string; residuals: string } {
+  const first = RESIDUAL_BLOCK.formulaRow;
+  const last = first + Math.max(1, pairs) - 1;
+  const column = (k: number) => formatBlock({ sheet, firstRow: first, lastRow: last, firstColumn: RESIDUAL_BLOCK.firstColumn + k, lastColumn: RESIDUAL_BLOCK.firstColumn + k });
+  return { rows: column(0), fitted: column(1), residuals: column(2) };
+}
+
+/**
+ * The report's three native charts, each bound to cells so it stays live: y against x from the data cells with
+ * the least-squares line; the residuals against the fitted values; the residuals in row order (against the sheet
+ * row of each pair). The last two read the RESIDUALS spill on the report sheet `sheet`; with fewer than 3 pairs
+ * (RESIDUALS then answers #N/A) only the first is made.
+ */
+export function reportCharts(sheet: string, x: ColumnRef, y: ColumnRef, names: { x: string; y: string }, pairs: number): ReportChartSpec[] {
+  const place = (k: number) => ({ at: REPORT_CHART_PLACES[k].at, to: REPORT_CHART_PLACES[k].to });
+  const specs: ReportChartSpec[] = [
+    { title: `${names.y} against ${names.x}`, x: formatBlock(x.block), y: formatBlock(y.block), xTitle: names.x, yTitle: names.y, ...place(0), trendline: true },
+  ];
+  if (pairs < 3) return specs;
+  const cells = residualCells(sheet, pairs);
+  specs.push(
+    { title: `Residuals of ${names.y} against the fitted values`, x: cells.fitted, y: cells.residuals, xTitle: `Fitted ${names.y}`, yTitle: 'Residual', ...place(1), trendline: false },
+    { title: `Residuals of ${names.y} in row order`, x: cells.rows, y: cells.residuals, xTitle: `Sheet row (${x.block.sheet})`, yTitle: 'Residual', ...place(2), trendline: false },
+  );
+  return specs;
+}
+
 export function reportSheetCells(x: ColumnRef, y: ColumnRef, names: { x: string; y: string }, o: FormulaOptions, writtenAt: Date, compare?: ReportComparison): Entry[][] {
   const xr = columnReference(x, '', o.a1);
   const yr = columnReference(y, '', o.a1);
   const args = `${xr}, ${yr}`;
-  const width = 4;
+  // Columns A-D, out to the residual block's last column (the cells between are written blank).
+  const width = RESIDUAL_BLOCK.firstColumn + RESIDUAL_HEADERS.length - 1;
   const row = (...cells: Entry[]): Entry[] => [...cells, ...Array(width - cells.length).fill('')];
   const t = textEntry;
   const rows: Entry[][] = [
@@ -158,6 +215,10 @@ export function reportSheetCells(x: ColumnRef, y: ColumnRef, names: { x: string;
     row('', '', '', t('Does the conclusion hold?')),
     row('', '', '', formulaEntry(`=COVARY.SENSITIVITY(${args}, ${o.level}, ${literal(o.method)})`)),
   ];
+  // The residual block (RESIDUAL_BLOCK): headers, then the formula whose spill the residual charts read.
+  const put = (r: number, entries: Entry[]) => entries.forEach((e, k) => (rows[r - 1][RESIDUAL_BLOCK.firstColumn - 1 + k] = e));
+  put(RESIDUAL_BLOCK.headerRow, RESIDUAL_HEADERS.map((h) => t(h)));
+  put(RESIDUAL_BLOCK.formulaRow, [formulaEntry(`=COVARY.RESIDUALS(${args})`)]);
   if (!compare) return rows;
   while (rows.length < COMPARISON_ROW - 1) rows.push(row());
   const a = [xr, yr];

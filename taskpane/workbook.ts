@@ -11,6 +11,7 @@
  *   uses this method when present and readColumn otherwise.
  * - ReadOptions (optional on every read): progress for reads made in several requests, and a signal that cancels
  *   a read once it is stale (the panel cancels the read of a previous refresh when cells change again).
+ * - ReportChartSpec.to (optional): the chart's bottom-right cell, so the report's charts can be stacked.
  */
 
 /** A rectangular block of cells read from the workbook. */
@@ -77,16 +78,20 @@ export class ReadCancelled extends Error {
   }
 }
 
-/** A native chart for the report sheet: y against x from the data cells, so it stays live with them. */
+/** A native XY scatter chart for the report sheet: y against x bound to cells (the data, or the report's own
+ *  formula cells), so it stays live with them. */
 export interface ReportChartSpec {
   title: string;
-  /** The data cells of x and y (same length), with their sheet, e.g. "North!B2:B49". */
+  /** The cells of x and y (same length), with their sheet, e.g. "North!B2:B49". */
   x: string;
   y: string;
   xTitle: string;
   yTitle: string;
   /** The cell the chart's top-left corner sits on, on the report sheet, e.g. "F2". */
   at: string;
+  /** Optional: the cell its bottom-right corner sits on, e.g. "M17" (several charts then cannot overlap);
+   *  omitted, the host's default size. */
+  to?: string;
   /** Adds the least-squares straight line (Excel's linear trendline). */
   trendline: boolean;
 }

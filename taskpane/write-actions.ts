@@ -9,11 +9,11 @@ import { button, el } from './dom';
 import { PANEL_TEST_IDS } from './panel-api';
 import type { PairChoice } from './pair-picker';
 import { dataBlock } from './pairs';
-import { allBlank, ColumnRef, formulaBlock, FormulaOptions, formulaPlaces, ReportComparison, reportSheetCells, topLeftOf } from './sheet-output';
+import { allBlank, ColumnRef, completePairCount, formulaBlock, FormulaOptions, formulaPlaces, reportCharts, ReportComparison, reportSheetCells, topLeftOf } from './sheet-output';
 import type { Design } from './design';
-import type { NumericColumnRead, Workbook } from './workbook';
+import type { NumericColumnRead, ReportChartSpec, Workbook } from './workbook';
 
-/** Past this many rows the report gets no native chart (the points would bury the picture and slow the workbook). */
+/** Past this many rows the report gets no native charts (the points would bury the picture and slow the workbook). */
 const CHART_ROWS = 50000;
 
 /** What the buttons write about: the pair as last read, and the options in force. */
@@ -98,37 +98,41 @@ export function writeActions(wb: Workbook, subject: () => WriteSubject | null): 
         const [x, y] = refsOf(c.choice, c.reads);
         compare = { x, y, names: { x: c.reads[0].header, y: c.reads[1].header }, design: c.design, common: c.common };
       }
-      const cells = reportSheetCells(xr, yr, { x: s.reads[0].header, y: s.reads[1].header }, s.options, new Date(), compare);
+      const names = { x: s.reads[0].header, y: s.reads[1].header };
+      const cells = reportSheetCells(xr, yr, names, s.options, new Date(), compare);
       const name = await wb.addSheet('Covary report', cells);
-      const chart = await addScatter(name, s, xr, yr);
-      status.textContent = `Report written to the sheet "${name}"${chart}.`;
+      const rows = xr.block.lastRow - xr.block.firstRow + 1;
+      const charts = await addScatter(name, reportCharts(name, xr, yr, names, completePairCount(s.reads[0].numbers, s.reads[1].numbers)), rows);
+      status.textContent = `Report written to the sheet "${name}"${charts}.`;
     } catch (e) {
       status.textContent = `Could not write the report sheet: ${e instanceof Error ? e.message : String(e)}`;
     }
   }
 
   /**
-   * The report's native chart, bound to the data cells so it stays live: y against x with Excel's linear
-   * trendline, beside the tables (column M clears CHECKS' spill). Returns what to add to the status line.
+   * The report's native XY scatter charts (sheet-output.ts reportCharts), each bound to cells so it stays live:
+   * y against x with Excel's linear trendline, then the residuals against the fitted values and in row order
+   * from the report's RESIDUALS spill, stacked in columns M-T. Past CHART_ROWS data rows none is added. A chart
+   * the host refuses does not stop the others. Returns what to add to the status line.
    */
-  async function addScatter(sheet: string, s: WriteSubject, xr: ColumnRef, yr: ColumnRef): Promise<string> {
+  async function addScatter(sheet: string, specs: ReportChartSpec[], rows: number): Promise<string> {
     if (!wb.addChart) return '';
-    const rows = xr.block.lastRow - xr.block.firstRow + 1;
-    if (rows > CHART_ROWS) return ` (no chart: ${rows.toLocaleString('en-US')} rows is past the ${CHART_ROWS.toLocaleString('en-US')} a chart shows well; the panel draws a sample)`;
-    try {
-      await wb.addChart(sheet, {
-        title: `${s.reads[1].header} against ${s.reads[0].header}`,
-        x: formatBlock(xr.block),
-        y: formatBlock(yr.block),
-        xTitle: s.reads[0].header,
-        yTitle: s.reads[1].header,
-        at: 'M2',
-        trendline: true,
-      });
-      return ', with a live scatter chart and its straight line';
-    } catch (e) {
-      return ` (the chart could not be added: ${e instanceof Error ? e.message : String(e)})`;
+    if (rows > CHART_ROWS) return ` (no charts: ${rows.toLocaleString('en-US')} rows is past the ${CHART_ROWS.toLocaleString('en-US')} a chart shows well; the panel draws a sample)`;
+    const failed: string[] = [];
+    for (const spec of specs) {
+      try {
+        await wb.addChart(sheet, spec);
+      } catch (e) {
+        failed.push(`“${spec.title}” could not be added: ${e instanceof Error ? e.message : String(e)}`);
+      }
     }
+    if (failed.length === 0) {
+      return specs.length > 1
+        ? ', with live charts: the scatter with its straight line, and the residuals against the fitted values and in row order'
+        : ', with a live scatter chart and its straight line';
+    }
+    const made = specs.length - failed.length;
+    return `${made > 0 ? `, with ${made} of its ${specs.length} live charts` : ''} (${failed.join('; ')})`;
   }
 
   formulasButton.addEventListener('click', () => void putFormulas());

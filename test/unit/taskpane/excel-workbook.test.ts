@@ -199,8 +199,8 @@ class World {
                   };
                 },
               },
-              setPosition(at: string) {
-                world.log.push(`chart at ${at}`);
+              setPosition(at: string, end?: string) {
+                world.log.push(end === undefined ? `chart at ${at}` : `chart at ${at} to ${end}`);
               },
             };
             world.charts.push(chart);
@@ -487,6 +487,32 @@ describe('ExcelWorkbook on office-addin-mock', () => {
     expect(w.charts[0].title.text).toBe('Loaves sold against Oven hours');
     expect(w.charts[0].legend.visible).toBe(false);
     expect([w.charts[0].axes.categoryAxis.title.text, w.charts[0].axes.valueAxis.title.text]).toEqual(['Oven hours', 'Loaves sold']);
+  });
+
+  test('addChart binds a residual chart to the report\'s own cells: no trendline, placed from its top-left to its bottom-right cell', async () => {
+    const w = demoWorld();
+    w.sheets.set('Covary report', []);
+    await new ExcelWorkbook().addChart('Covary report', {
+      title: 'Residuals of Loaves sold against the fitted values', x: "'Covary report'!X2:X5", y: "'Covary report'!Y2:Y5",
+      xTitle: 'Fitted Loaves sold', yTitle: 'Residual', at: 'M19', to: 'T34', trendline: false,
+    });
+    expect(w.log).toEqual([
+      "chart XYScatter of 'Covary report'!Y2:Y5 by Columns on Covary report",
+      "series 0 x from 'Covary report'!X2:X5",
+      'chart at M19 to T34',
+    ]);
+    expect([w.charts[0].title.text, w.charts[0].axes.categoryAxis.title.text, w.charts[0].axes.valueAxis.title.text]).toEqual([
+      'Residuals of Loaves sold against the fitted values', 'Fitted Loaves sold', 'Residual',
+    ]);
+  });
+
+  test('addChart refuses a corner cell it cannot read, before touching the workbook', async () => {
+    const w = demoWorld();
+    w.sheets.set('Covary report', []);
+    await expect(new ExcelWorkbook().addChart('Covary report', {
+      title: 't', x: 'North!B2:B5', y: 'North!C2:C5', xTitle: 'x', yTitle: 'y', at: 'M2', to: 'not a cell', trendline: false,
+    })).rejects.toThrow(/not a cell for the chart's corner/);
+    expect(w.log).toEqual([]);
   });
 
   test('addSheet picks an unused name, writes from A1 and shows the sheet', async () => {

@@ -4,9 +4,12 @@
  * special characters in a column name escaped by a single quote ("Using structured references with Excel
  * tables").
  */
-import { parseAddress } from '../../../src/sheet/a1';
+import { blocksIntersect, CellBlock, cellName, columnNumber, parseAddress } from '../../../src/sheet/a1';
 import { Entry, isFormulaEntry, shownText } from '../../../src/sheet/entries';
-import { allBlank, columnReference, escapeColumnName, formulaBlock, formulaPlaces, reportSheetCells, ColumnRef } from '../../../taskpane/sheet-output';
+import {
+  allBlank, columnReference, completePairCount, escapeColumnName, formulaBlock, formulaPlaces, reportCharts, reportSheetCells, residualCells, ColumnRef,
+  REPORT_CHART_PLACES, RESIDUAL_BLOCK,
+} from '../../../taskpane/sheet-output';
 
 const block = (a: string) => parseAddress(a)![0];
 const rangeRef = (a: string): ColumnRef => ({ source: { kind: 'range', address: a }, block: block(a) });
@@ -54,11 +57,13 @@ describe('formula block', () => {
 });
 
 describe('report sheet', () => {
-  test('REPORT and CHECKS formulas with sheet-qualified references, rectangular', () => {
+  test('REPORT, CHECKS, SENSITIVITY and RESIDUALS formulas with sheet-qualified references, rectangular', () => {
     const rows = reportSheetCells(rangeRef("'North branch'!B2:B49"), rangeRef("'North branch'!C2:C49"), { x: 'Visits', y: 'Sales' }, { method: 'pearson', level: 0.95, alpha: 0.05 }, new Date(Date.UTC(2024, 4, 1, 9, 30)));
     expect(new Set(rows.map((r) => r.length)).size).toBe(1);
     const formulas = rows.flat().filter(isFormulaEntry);
     expect(formulas).toEqual([
+      // In reading order: RESIDUALS sits in row 2 (column W), the tables from row 11.
+      "=COVARY.RESIDUALS('North branch'!$B$2:$B$49, 'North branch'!$C$2:$C$49)",
       "=COVARY.REPORT('North branch'!$B$2:$B$49, 'North branch'!$C$2:$C$49, 0.95, \"pearson\", \"\", $B$2, $B$3)",
       "=COVARY.CHECKS('North branch'!$B$2:$B$49, 'North branch'!$C$2:$C$49, 0.05)",
       "=COVARY.SENSITIVITY('North branch'!$B$2:$B$49, 'North branch'!$C$2:$C$49, 0.95, \"pearson\")",
@@ -74,6 +79,78 @@ describe('report sheet', () => {
     const sensitivityRow = rows.findIndex((r) => String(r[3]).startsWith('=COVARY.SENSITIVITY'));
     expect(sensitivityRow - checksRow).toBeGreaterThan(9); // CHECKS spills a header and eight rows
     for (let i = checksRow + 1; i < checksRow + 9; i++) expect(rows[i][3]).toBe('');
+  });
+});
+
+describe('report sheet: the residual block and the three charts', () => {
+  const x = rangeRef('North!B2:B49');
+  const y = rangeRef('North!C2:C49');
+  const rows = reportSheetCells(x, y, { x: 'Oven hours', y: 'Loaves sold' }, { method: 'pearson', level: 0.95, alpha: 0.05 }, new Date(0));
+  /** The non-blank entries of the report, as [A1 cell, entry]. */
+  const filled = rows.flatMap((r, i) => r.map((e, j) => ({ row: i + 1, column: j + 1, e }))).filter((c) => c.e !== '');
+  const cellAt = (a1: string) => {
+    const b = block(a1);
+    return rows[b.firstRow - 1]?.[b.firstColumn - 1];
+  };
+
+  test('headers in W1:Y1 and the RESIDUALS formula in W2, as entered text and a formula', () => {
+    expect([RESIDUAL_BLOCK.firstColumn, RESIDUAL_BLOCK.headerRow, RESIDUAL_BLOCK.formulaRow]).toEqual([columnNumber('W'), 1, 2]);
+    expect(['W1', 'X1', 'Y1'].map((a) => cellAt(a))).toEqual(["'Sheet row", "'Fitted value", "'Residual"]);
+    expect(cellAt('W2')).toBe('=COVARY.RESIDUALS(North!$B$2:$B$49, North!$C$2:$C$49)');
+    expect(new Set(rows.map((r) => r.length))).toEqual(new Set([columnNumber('Y')]));
+  });
+
+  test('nothing else is written in columns L to Y, where the charts and the residual spill go', () => {
+    const right = filled.filter((c) => c.column >= columnNumber('L'));
+    expect(right.map((c) => cellName(c.row, c.column))).toEqual(['W1', 'X1', 'Y1', 'W2']);
+  });
+
+  test('chart cells cover exactly the spill rows: W2:W(n+1), X2:X(n+1), Y2:Y(n+1) on the report sheet', () => {
+    expect(residualCells('Covary report (2)', 45)).toEqual({
+      rows: "'Covary report (2)'!W2:W46", fitted: "'Covary report (2)'!X2:X46", residuals: "'Covary report (2)'!Y2:Y46",
+    });
+  });
+
+  test('complete pairs: rows where both cells hold numbers (NaN marks the others)', () => {
+    expect(completePairCount(Float64Array.of(1, NaN, 3, 4, 5), Float64Array.of(2, 2, NaN, 4, 6))).toBe(3);
+  });
+
+  test('three charts: the data scatter with its line, then residuals against fitted values and in row order', () => {
+    const specs = reportCharts('Covary report', x, y, { x: 'Oven hours', y: 'Loaves sold' }, 45);
+    expect(specs.map((c) => [c.x, c.y, c.trendline, c.at, c.to])).toEqual([
+      ['North!B2:B49', 'North!C2:C49', true, 'M2', 'T17'],
+      ["'Covary report'!X2:X46", "'Covary report'!Y2:Y46", false, 'M19', 'T34'],
+      ["'Covary report'!W2:W46", "'Covary report'!Y2:Y46", false, 'M36', 'T51'],
+    ]);
+    expect(specs.map((c) => [c.title, c.xTitle, c.yTitle])).toEqual([
+      ['Loaves sold against Oven hours', 'Oven hours', 'Loaves sold'],
+      ['Residuals of Loaves sold against the fitted values', 'Fitted Loaves sold', 'Residual'],
+      ['Residuals of Loaves sold in row order', 'Sheet row (North)', 'Residual'],
+    ]);
+  });
+
+  test('with fewer than 3 pairs (RESIDUALS answers #N/A) only the data scatter is made', () => {
+    expect(reportCharts('R', x, y, { x: 'a', y: 'b' }, 2).map((c) => c.title)).toEqual(['b against a']);
+  });
+
+  test('the charts overlap neither each other, nor the tables (A-K), nor the residual block (W-Y)', () => {
+    const place = (p: { at: string; to: string }): CellBlock => {
+      const a = block(p.at);
+      const b = block(p.to);
+      return { sheet: '', firstRow: a.firstRow, lastRow: b.lastRow, firstColumn: a.firstColumn, lastColumn: b.lastColumn };
+    };
+    const places = REPORT_CHART_PLACES.map(place);
+    const tables: CellBlock = { sheet: '', firstRow: 1, lastRow: 1048576, firstColumn: 1, lastColumn: columnNumber('K') };
+    const residuals: CellBlock = { sheet: '', firstRow: 1, lastRow: 1048576, firstColumn: columnNumber('W'), lastColumn: columnNumber('Y') };
+    const clashes: string[] = [];
+    places.forEach((p, i) => {
+      places.forEach((q, j) => {
+        if (i < j && blocksIntersect(p, q)) clashes.push(`chart ${i} and chart ${j}`);
+      });
+      if (blocksIntersect(p, tables)) clashes.push(`chart ${i} and the tables`);
+      if (blocksIntersect(p, residuals)) clashes.push(`chart ${i} and the residual block`);
+    });
+    expect(clashes).toEqual([]);
   });
 });
 
