@@ -47,6 +47,9 @@ export class PlanningLine {
   private readonly note: HTMLElement;
   private n = 0;
   private alpha = 0.05;
+  /** Answers already found, by what they depend on: a redraw after an edit usually keeps n and alpha, and each
+   *  search of the exact distribution costs a few milliseconds (about 20 ms for the whole line at any n). */
+  private readonly memo = new Map<string, number>();
 
   constructor() {
     this.lead = el('p', { class: 'cv-planning-lead', testid: 'planning-lead' });
@@ -91,13 +94,13 @@ export class PlanningLine {
     }
     const opts = { alpha, tail: 'both' as const };
     const n1 = Math.min(n, MAX_PLANNING_N);
-    const d8 = detectableCorrelation(n1, 0.8, opts).rho;
-    const d9 = detectableCorrelation(n1, 0.9, opts).rho;
+    const d8 = this.remember(`d|${n1}|${alpha}|0.8`, () => detectableCorrelation(n1, 0.8, opts).rho);
+    const d9 = this.remember(`d|${n1}|${alpha}|0.9`, () => detectableCorrelation(n1, 0.9, opts).rho);
     this.lead.textContent = `Smallest true correlation these ${formatCount(n)} pairs find 8 times in 10: ${shortR(d8)}; 9 times in 10: ${shortR(d9)} (two-sided test, alpha ${a}).`;
     fill(this.body, PLANNING_SIZES.map((s) => el('tr', {}, [
       el('th', { text: `${formatR(s.rho)} (${s.word})`, attrs: { scope: 'row' } }),
-      el('td', { class: 'cv-num', text: percent(correlationPower(s.rho, n1, opts).power) }),
-      el('td', { class: 'cv-num', text: rowsFor(s.rho, alpha) }),
+      el('td', { class: 'cv-num', text: percent(this.remember(`p|${n1}|${alpha}|${s.rho}`, () => correlationPower(s.rho, n1, opts).power)) }),
+      el('td', { class: 'cv-num', text: this.rowsFor(s.rho, alpha) }),
     ])));
     this.note.textContent = method === 'pearson'
       ? 'For Pearson\u2019s r on roughly normal data. Plan on the rows that will be complete, after blanks are left out.'
@@ -114,17 +117,31 @@ export class PlanningLine {
       return;
     }
     const opts = { alpha: this.alpha, tail: 'both' as const };
-    const power = correlationPower(rho, Math.min(this.n, MAX_PLANNING_N), opts).power;
-    this.answer.textContent = `A true correlation of ${shortR(Math.abs(rho))} is found ${percent(power)} of the time with ${formatCount(this.n)} pairs; ${rowsFor(rho, this.alpha)} rows find it 8 times in 10.`;
+    const n1 = Math.min(this.n, MAX_PLANNING_N);
+    const power = this.remember(`p|${n1}|${this.alpha}|${rho}`, () => correlationPower(rho, n1, opts).power);
+    this.answer.textContent = `A true correlation of ${shortR(Math.abs(rho))} is found ${percent(power)} of the time with ${formatCount(this.n)} pairs; ${this.rowsFor(rho, this.alpha)} rows find it 8 times in 10.`;
   }
-}
 
-/** Rows for 80% power, or a phrase when the answer is past what planning searches. */
-function rowsFor(rho: number, alpha: number): string {
-  try {
-    return formatCount(sampleSizeForCorrelation(rho, 0.8, { alpha, tail: 'both' }).n);
-  } catch {
-    return `over ${formatCount(MAX_PLANNING_N)}`;
+  private remember(key: string, find: () => number): number {
+    let v = this.memo.get(key);
+    if (v === undefined) {
+      if (this.memo.size > 200) this.memo.clear();
+      v = find();
+      this.memo.set(key, v);
+    }
+    return v;
+  }
+
+  /** Rows for 80% power, or a phrase when the answer is past what planning searches. */
+  private rowsFor(rho: number, alpha: number): string {
+    const n = this.remember(`n|${alpha}|${Math.abs(rho)}`, () => {
+      try {
+        return sampleSizeForCorrelation(Math.abs(rho), 0.8, { alpha, tail: 'both' }).n;
+      } catch {
+        return Infinity;
+      }
+    });
+    return Number.isFinite(n) ? formatCount(n) : `over ${formatCount(MAX_PLANNING_N)}`;
   }
 }
 

@@ -18,6 +18,8 @@ export class PreparedPairs {
   private readonly memos = new Map<string, unknown>();
   /** Arrays inside memoised values that release() may give back (see adopt). */
   private readonly adopted: ArrayBufferView[] = [];
+  /** Memos handed in by their owner (see seed): release() leaves them alone. */
+  private readonly seeded = new Set<string>();
 
   constructor(x: ArrayLike<number>, y: ArrayLike<number>) {
     this.x = x instanceof Float64Array ? x : Float64Array.from(x);
@@ -33,6 +35,26 @@ export class PreparedPairs {
     if (this.memos.has(key)) return this.memos.get(key) as T;
     const v = compute();
     this.memos.set(key, v);
+    return v;
+  }
+
+  /**
+   * Hands in a value computed elsewhere for `key` (the panel's sorted order of a column that an edit left
+   * unchanged): it must be what the memo's own computation would give for these columns. The caller keeps
+   * owning it: release() neither gives it back nor lets it be reused.
+   */
+  seed(key: 'sortedX' | 'ranksX' | 'sortedY' | 'ranksY', value: KeyedOrder | Float64Array): void {
+    this.memos.set(key, value);
+    this.seeded.add(key);
+  }
+
+  /**
+   * Takes a computed memo out of release()'s reach, for a caller that keeps it past this object (to seed the next
+   * one); undefined when it was never computed.
+   */
+  keep(key: 'sortedX' | 'ranksX' | 'sortedY' | 'ranksY'): KeyedOrder | Float64Array | undefined {
+    const v = this.memos.get(key) as KeyedOrder | Float64Array | undefined;
+    if (v !== undefined) this.seeded.add(key);
     return v;
   }
 
@@ -75,15 +97,17 @@ export class PreparedPairs {
    * an owner that knows nothing else still reads them (the cell functions' cache, on eviction).
    */
   release(): void {
+    const own = (key: string) => (this.seeded.has(key) ? undefined : this.memos.get(key));
     for (const key of ['sortedX', 'sortedY']) {
-      const sorted = this.memos.get(key) as KeyedOrder | undefined;
+      const sorted = own(key) as KeyedOrder | undefined;
       if (sorted) releaseKeyedOrder(sorted);
     }
     const fit = this.memos.get('fit') as LineFit | undefined;
-    giveBack(this.memos.get('ranksX') as Float64Array | undefined, this.memos.get('ranksY') as Float64Array | undefined);
+    giveBack(own('ranksX') as Float64Array | undefined, own('ranksY') as Float64Array | undefined);
     if (fit) giveBack(fit.fitted, fit.residuals);
     giveBack(...this.adopted);
     this.adopted.length = 0;
+    this.seeded.clear();
     this.memos.clear();
   }
 

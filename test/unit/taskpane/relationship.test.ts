@@ -6,7 +6,7 @@
  */
 import * as fs from 'fs';
 import * as path from 'path';
-import { analyseRelationship, FLAG_OUTLIER, isFailure, RedrawMemory, RelationshipView, SMOOTH_LIMIT } from '../../../taskpane/relationship';
+import { analyseRelationship, FLAG_OUTLIER, isFailure, RedrawMemory, RelationshipView, resorted, SMOOTH_LIMIT } from '../../../taskpane/relationship';
 import { drawSample } from '../../../taskpane/draw-sample';
 import { lowess } from '../../../src/stats/plots/lowess';
 import type { PairedRows } from '../../../taskpane/pairs';
@@ -136,6 +136,46 @@ describe('redraws after an edit', () => {
     const back = analyseRelationship(pairs(x, y), opts, memory) as RelationshipView;
     expect(Array.from(back.drawn.rows)).not.toContain(outside + 2);
     expect(Array.from(back.drawn.rows)).toEqual(Array.from(drawSample(n, back.flaggedRows.map((r) => r - 2), opts.drawLimit), (i) => i + 2));
+  });
+});
+
+describe('sorted orders kept between redraws', () => {
+  // The order a column's sort gave is kept; after an edit of a few cells it is mended instead of sorted again.
+  // The reference is JavaScript's own Array.prototype.sort, stable by the language standard (ECMA-262, 2019 on).
+  const stableOrder = (v: Float64Array) => Array.from(v, (_, i) => i).sort((a, b) => v[a] - v[b] || a - b);
+
+  test('mending an order after changed places gives the stable sort of the new values, ties by place', () => {
+    let seed = 7;
+    const rand = () => ((seed = (seed * 16807) % 2147483647) / 2147483647);
+    const v = Float64Array.from({ length: 3000 }, () => Math.round(rand() * 400) / 4 + 1); // many ties, no zeros
+    const before = stableOrder(v);
+    const w = v.slice();
+    const changed = [17, 1200, 2999, 5];
+    w[17] = w[400]; // equal to another value: placed by its place among the equals
+    w[1200] = 1e6; // past the end
+    w[2999] = -3; // before the start
+    w[5] = w[5] + 0.125;
+    expect(Array.from(resorted(before, w, changed)!)).toEqual(stableOrder(w));
+    expect(resorted(before, Float64Array.of(...w.slice(0, 5), 0, ...w.slice(6)), [5])).toBeNull();
+  });
+
+  test('a redraw that reuses or mends the sorts shows what a fresh computation shows', () => {
+    const n = 4000;
+    const x = Array.from({ length: n }, (_, i) => ((i * 7919) % 1000) / 10 + 1);
+    const y = x.map((v, i) => 0.5 * v + ((i * 104729) % 97) / 10 + 1);
+    const memory = new RedrawMemory();
+    const spearman = { ...opts, method: 'spearman' as const };
+    analyseRelationship(pairs(x, y), spearman, memory);
+    for (const [col, at, value] of [['y', 10, 77.5], ['y', 3000, 12], ['x', 5, 50.1], ['x', 5, 50.1]] as const) {
+      if (col === 'y') y[at] = value;
+      else x[at] = value;
+      const kept = analyseRelationship(pairs(x, y), spearman, memory) as RelationshipView;
+      const fresh = analyseRelationship(pairs(x, y), spearman) as RelationshipView;
+      expect(kept.correlation.statistic).toBe(fresh.correlation.statistic);
+      expect(kept.correlation.pValue).toBe(fresh.correlation.pValue);
+      expect(kept.verdict.rows.map((r) => r.statistic)).toEqual(fresh.verdict.rows.map((r) => r.statistic));
+      expect(kept.checks.map((c) => c.pValue)).toEqual(fresh.checks.map((c) => c.pValue));
+    }
   });
 });
 
