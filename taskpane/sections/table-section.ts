@@ -68,6 +68,7 @@ export class TableSection {
   private readonly message: HTMLElement;
   private readonly heatHolder: HTMLElement;
   private readonly detail: HTMLElement;
+  private readonly scrollHint: HTMLElement;
   private readonly leftOut: HTMLElement;
   private readonly controlsBox: HTMLElement;
   private readonly partialBox: HTMLElement;
@@ -75,6 +76,7 @@ export class TableSection {
   private readonly partialText: HTMLElement;
   private readonly scheduler: LiveScheduler;
   private readonly observer: IntersectionObserver | null = null;
+  private readonly resizer: ResizeObserver | null = null;
   private onScreen = true;
   private owed = false;
   private tables: TableInfo[] = [];
@@ -100,6 +102,7 @@ export class TableSection {
     });
     this.message = el('div', { class: 'cv-message cv-hidden', testid: TABLE_TEST_IDS.message, attrs: { role: 'status' } });
     this.heatHolder = el('div', { class: 'cv-heat-wrap', attrs: { role: 'region', 'aria-label': 'Correlation heatmap', tabindex: '-1' } });
+    this.scrollHint = el('p', { class: 'cv-hint cv-hidden', testid: 'heatmap-scroll-hint', text: 'More columns to the right: scroll sideways, or move with the arrow keys.' });
     this.detail = el('p', { class: 'cv-heat-detail', testid: TABLE_TEST_IDS.detail, text: 'Point at or tab to a cell for its figures; click it or press Enter to analyse that pair above.' });
     this.leftOut = el('p', { class: 'cv-hint', testid: TABLE_TEST_IDS.left });
     this.controlsBox = el('fieldset', { class: 'cv-controls', testid: TABLE_TEST_IDS.controls });
@@ -116,6 +119,7 @@ export class TableSection {
       el('div', { class: 'cv-field-grid' }, [el('label', { class: 'cv-field-label', text: 'Table' }), this.tableSelect]),
       this.message,
       this.heatHolder,
+      this.scrollHint,
       heatLegend(),
       this.detail,
       this.leftOut,
@@ -124,6 +128,11 @@ export class TableSection {
       this.partialBox,
     ]);
     this.scheduler = new LiveScheduler(() => this.refresh(), 200);
+    // The pane can be made narrower or wider at any time.
+    if (typeof ResizeObserver !== 'undefined') {
+      this.resizer = new ResizeObserver(() => this.showWidth());
+      this.resizer.observe(this.heatHolder);
+    }
     if (typeof IntersectionObserver !== 'undefined') {
       this.observer = new IntersectionObserver((entries) => {
         for (const e of entries) this.onScreen = e.isIntersecting;
@@ -155,6 +164,7 @@ export class TableSection {
     this.destroyed = true;
     this.scheduler.stop();
     this.observer?.disconnect();
+    this.resizer?.disconnect();
     if (this.unwatch) this.unwatch();
     this.unwatch = null;
   }
@@ -314,6 +324,14 @@ export class TableSection {
     const hadFocus = this.heatHolder.contains(document.activeElement);
     fill(this.heatHolder, [table]);
     if (hadFocus) this.cell(this.focusAt[0], this.focusAt[1])?.focus();
+    this.showWidth();
+  }
+
+  /** A heatmap wider than the pane scrolls sideways inside its frame: say so, as the cut-off edge may not show it. */
+  private showWidth(): void {
+    const wide = this.heatHolder.scrollWidth > this.heatHolder.clientWidth + 1;
+    this.heatHolder.classList.toggle('cv-heat-wide', wide);
+    this.scrollHint.classList.toggle('cv-hidden', !wide);
   }
 
   private cell(i: number, j: number): HTMLButtonElement | null {

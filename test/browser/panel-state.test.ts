@@ -171,6 +171,8 @@ describe('pictures that leave the pane, and their numbers in words', () => {
     await fold.focus();
     await page().keyboard.press('Enter');
     const rows = page().locator('[data-testid="chart-scatter-table"] tbody tr');
+    // The table is built when the fold opens (its toggle event comes after the key press): wait for its last row.
+    await rows.nth(n - 1).waitFor();
     await expect(rows.count()).resolves.toBe(n);
     // Row 5 of the sheet, as the grid holds it (B5 was set to 99 above).
     const row5 = await page().locator('[data-testid="chart-scatter-table"] tbody tr', { hasText: /^5/ }).first().locator('td').allTextContents();
@@ -251,6 +253,8 @@ describe('the panel at task-pane widths, in both themes', () => {
     });
     expect(overflow.width).toBeLessThanOrEqual(width);
     expect(overflow.out).toEqual([]);
+    // The heatmap of the demo table's ten columns is wider than 320 px: it scrolls in its frame and says so.
+    await expect(testid('heatmap-scroll-hint').isVisible()).resolves.toBe(width === 320);
     for (const id of ['section-relationship', 'section-residuals', 'section-compare', 'section-table']) {
       const el = page().locator(`[data-testid="${id}"]`);
       await el.scrollIntoViewIfNeeded();
