@@ -218,3 +218,30 @@ export async function columnNumbers(page: Page, sheet: string, column: string, f
     { sheet, column, first, last },
   );
 }
+
+/** Two columns of a sheet (rows first..last) as the grid holds them, keeping the rows with a number in both. */
+export async function completePairs(page: Page, sheet: string, xColumn: string, yColumn: string, first: number, last: number): Promise<{ x: number[]; y: number[] }> {
+  const xs = await columnNumbers(page, sheet, xColumn, first, last);
+  const ys = await columnNumbers(page, sheet, yColumn, first, last);
+  const x: number[] = [];
+  const y: number[] = [];
+  xs.forEach((v, i) => {
+    const w = ys[i];
+    if (v !== null && w !== null) {
+      x.push(v);
+      y.push(w);
+    }
+  });
+  return { x, y };
+}
+
+/** The workbench started and open in Chromium, with the panel's first result on screen and settled. */
+export async function openWorkbenchWithPanel(): Promise<{ server: RunningWorkbench; browser: BrowserSession }> {
+  const server = await startWorkbench();
+  const browser = await openBrowser(server.origin);
+  await browser.page.goto(server.url);
+  await settle(browser.page);
+  await browser.page.waitForFunction(() => window.__covaryPanel?.summary() != null, undefined, { timeout: 30000 });
+  await panelIdle(browser.page);
+  return { server, browser };
+}

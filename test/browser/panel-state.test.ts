@@ -6,7 +6,7 @@
  * and a column without a header is named once. The expected figures are the grid's COEF formula cells (the cell
  * functions in the formula worker, a second route through the core), never the panel's own output.
  */
-import { BrowserSession, RunningWorkbench, afterPanelRedraw, cellValue, openBrowser, panelIdle, screenshot, settle, startWorkbench, typeInto } from './harness';
+import { BrowserSession, RunningWorkbench, afterPanelRedraw, cellValue, openWorkbenchWithPanel, panelIdle, screenshot, settle, typeInto } from './harness';
 
 jest.setTimeout(120000);
 
@@ -25,12 +25,7 @@ async function afterAction(action: () => Promise<unknown>): Promise<void> {
 }
 
 beforeAll(async () => {
-  server = await startWorkbench();
-  browser = await openBrowser(server.origin);
-  await browser.page.goto(server.url);
-  await settle(browser.page);
-  await browser.page.waitForFunction(() => window.__covaryPanel?.summary() != null, undefined, { timeout: 30000 });
-  await panelIdle(browser.page);
+  ({ server, browser } = await openWorkbenchWithPanel());
 }, 300000);
 
 afterAll(async () => {

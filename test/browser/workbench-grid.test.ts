@@ -7,7 +7,7 @@
  */
 import * as fs from 'fs';
 import {
-  BrowserSession, RunningWorkbench, cell, cellValue, columnNumbers, foreignRequests, openBrowser, pearsonReference,
+  BrowserSession, RunningWorkbench, cell, cellValue, completePairs, foreignRequests, openBrowser, pearsonReference,
   screenshot, settle, showSheet, startWorkbench, typeInto,
 } from './harness';
 
@@ -38,20 +38,7 @@ afterAll(async () => {
 const page = () => browser.page;
 
 /** The demo pair's numbers (North!B2:C49), pairwise complete. */
-async function demoPair(): Promise<{ x: number[]; y: number[] }> {
-  const bs = await columnNumbers(page(), 'North', 'B', 2, 49);
-  const cs = await columnNumbers(page(), 'North', 'C', 2, 49);
-  const x: number[] = [];
-  const y: number[] = [];
-  bs.forEach((b, i) => {
-    const c = cs[i];
-    if (b !== null && c !== null) {
-      x.push(b);
-      y.push(c);
-    }
-  });
-  return { x, y };
-}
+const demoPair = () => completePairs(page(), 'North', 'B', 'C', 2, 49);
 
 describe('the workbench page', () => {
   test('loads with its sheets, demo tables and the functions from functions.js', async () => {

@@ -8,7 +8,7 @@
  * The expected correlation comes from Pearson's definition in the harness (pearsonReference), not the project.
  */
 import {
-  BrowserSession, RunningWorkbench, cell, cellValue, columnNumbers, openBrowser, pearsonReference, screenshot, settle,
+  BrowserSession, RunningWorkbench, cell, cellValue, completePairs, openBrowser, pearsonReference, screenshot, settle,
   showSheet, startWorkbench,
 } from './harness';
 
@@ -50,20 +50,7 @@ async function step(name: string, run: () => Promise<void>): Promise<void> {
 }
 
 /** North!B2:C49 as the grid holds it, rows with a number in both. */
-async function northPair(): Promise<{ x: number[]; y: number[] }> {
-  const bs = await columnNumbers(page(), 'North', 'B', 2, 49);
-  const cs = await columnNumbers(page(), 'North', 'C', 2, 49);
-  const x: number[] = [];
-  const y: number[] = [];
-  bs.forEach((b, i) => {
-    const c = cs[i];
-    if (b !== null && c !== null) {
-      x.push(b);
-      y.push(c);
-    }
-  });
-  return { x, y };
-}
+const northPair = () => completePairs(page(), 'North', 'B', 'C', 2, 49);
 
 async function goTo(address: string): Promise<void> {
   const box = page().getByTestId('name-box');

@@ -66,8 +66,8 @@ export function decimalPlaces(v: ArrayLike<number>): number {
   return d;
 }
 
-/** Neumaier-compensated mean of v / scale. */
-function scaledMean(v: ArrayLike<number>, scale: number): number {
+/** Neumaier-compensated mean of v / scale (shared with residuals.ts, which centres its columns the same way). */
+export function scaledMean(v: ArrayLike<number>, scale: number): number {
   let sum = 0;
   let comp = 0;
   const inv = 1 / scale;

@@ -22,7 +22,7 @@
  *
  * Pure and host-free. Allocates the two result arrays and nothing else of size n.
  */
-import { decimalPlaces, powerOfTwoScale } from './comoments';
+import { decimalPlaces, powerOfTwoScale, scaledMean } from './comoments';
 import { StatsInputError } from '../types';
 
 /** The straight line's fitted values and residuals, pair by pair. */
@@ -49,18 +49,6 @@ interface Centred {
   scale: number;
 }
 
-/** Neumaier-compensated sum of v[i] * inv. */
-function compensatedMean(v: ArrayLike<number>, inv: number): number {
-  let sum = 0;
-  let comp = 0;
-  for (let i = 0; i < v.length; i++) {
-    const a = v[i] * inv;
-    const t = sum + a;
-    comp += Math.abs(sum) >= Math.abs(a) ? sum - t + a : a - t + sum;
-    sum = t;
-  }
-  return (sum + comp) / v.length;
-}
 
 /** Divides the deviations by a power of two near their largest magnitude (exact) and returns that factor. */
 function rescale(out: Float64Array): number {
@@ -96,7 +84,7 @@ function centre(v: ArrayLike<number>, out: Float64Array): Centred {
   }
   const scale = powerOfTwoScale(v);
   const inv = 1 / scale;
-  const m = compensatedMean(v, inv);
+  const m = scaledMean(v, scale);
   let s = 0;
   for (let i = 0; i < n; i++) {
     const e = v[i] * inv - m;
