@@ -166,11 +166,13 @@ export class RedrawMemory {
       const sorted = prepared.keep(keys[c][0]) as KeyedOrder | undefined;
       if (!sorted) continue;
       const kept = this.sorts[c];
+      const ranks = prepared.keep(keys[c][1]) as Float64Array | undefined;
       if (kept.sorted !== sorted) {
+        // A new column (or a mended order): ranks kept for the old one must not follow it.
         kept.values = cols[c].slice();
         kept.sorted = sorted;
-      }
-      kept.ranks = (prepared.keep(keys[c][1]) as Float64Array | undefined) ?? kept.ranks;
+        kept.ranks = ranks ?? null;
+      } else if (ranks) kept.ranks = ranks;
     }
   }
 
@@ -244,7 +246,8 @@ function changedPlaces(a: Float64Array, b: Float64Array, limit: number): number[
  * The stable ascending order of `values` from the previous order, where only the `changed` places have new
  * values: they are taken out, and each is put back where its value (then its place, for equal values) belongs,
  * found by binary search. The same order a stable sort gives, in O(n) instead of O(n log n). Null when a changed
- * value is zero: the sort keeps -0 before 0 by their bits, which this comparison by value would not.
+ * value is zero, where -0 and 0 meet: left to the sort itself rather than to this comparison (a caution; the
+ * sort treats them as equal, as this does).
  */
 export function resorted(previous: ArrayLike<number>, values: Float64Array, changed: number[]): Uint32Array | null {
   for (const i of changed) if (values[i] === 0) return null;

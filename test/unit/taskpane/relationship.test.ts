@@ -159,6 +159,22 @@ describe('sorted orders kept between redraws', () => {
     expect(resorted(before, Float64Array.of(...w.slice(0, 5), 0, ...w.slice(6)), [5])).toBeNull();
   });
 
+  test('ranks kept for one column never follow a new column whose redraw sorted it but failed before ranking', () => {
+    const n = 200;
+    const memory = new RedrawMemory();
+    const spearman = { ...opts, method: 'spearman' as const };
+    const ax = Array.from({ length: n }, (_, i) => ((i * 37) % 101) + 1);
+    const ay = ax.map((v, i) => v + ((i * 13) % 17));
+    analyseRelationship(pairs(ax, ay), spearman, memory);
+    // Pair B: most of x is one value, so the biweight has no scale and fails after sorting the columns.
+    const bx = Array.from({ length: n }, (_, i) => (i < 180 ? 5 : 5 + i));
+    const by = Array.from({ length: n }, (_, i) => ((i * 53) % 97) + 1);
+    expect(analyseRelationship(pairs(bx, by), { ...opts, method: 'biweight' as const }, memory)).toHaveProperty('error', expect.stringContaining('biweight'));
+    const kept = analyseRelationship(pairs(bx, by), spearman, memory) as RelationshipView;
+    const fresh = analyseRelationship(pairs(bx, by), spearman) as RelationshipView;
+    expect(kept.correlation.statistic).toBe(fresh.correlation.statistic);
+  });
+
   test('a redraw that reuses or mends the sorts shows what a fresh computation shows', () => {
     const n = 4000;
     const x = Array.from({ length: n }, (_, i) => ((i * 7919) % 1000) / 10 + 1);
