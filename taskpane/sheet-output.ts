@@ -163,12 +163,14 @@ export function completePairCount(x: Float64Array, y: Float64Array): number {
 }
 
 /**
- * The report sheet's cells that the RESIDUALS spill fills for `pairs` pairs, one address per column, with the
- * sheet: exactly the spill's rows, so a chart bound to them shows every residual and nothing else.
+ * The report sheet's cells that the RESIDUALS spill can fill, `rows` of them (the data rows: the spill has one row
+ * per complete pair, never more), one address per column, with the sheet. A chart bound to them shows every
+ * residual; the cells past the spill are empty and an XY scatter leaves empty cells out, so a blank filled in
+ * later, which lengthens the spill, still shows.
  */
-export function residualCells(sheet: string, pairs: number): { rows: string; fitted: string; residuals: string } {
+export function residualCells(sheet: string, rows: number): { rows: string; fitted: string; residuals: string } {
   const first = RESIDUAL_BLOCK.formulaRow;
-  const last = first + Math.max(1, pairs) - 1;
+  const last = first + Math.max(1, rows) - 1;
   const column = (k: number) => formatBlock({ sheet, firstRow: first, lastRow: last, firstColumn: RESIDUAL_BLOCK.firstColumn + k, lastColumn: RESIDUAL_BLOCK.firstColumn + k });
   return { rows: column(0), fitted: column(1), residuals: column(2) };
 }
@@ -176,16 +178,16 @@ export function residualCells(sheet: string, pairs: number): { rows: string; fit
 /**
  * The report's three native charts, each bound to cells so it stays live: y against x from the data cells with
  * the least-squares line; the residuals against the fitted values; the residuals in row order (against the sheet
- * row of each pair). The last two read the RESIDUALS spill on the report sheet `sheet`; with fewer than 3 pairs
- * (RESIDUALS then answers #N/A) only the first is made.
+ * row of each pair). The last two read the RESIDUALS spill on the report sheet `sheet`, over `dataRows` cells
+ * (residualCells); with fewer than 3 pairs (RESIDUALS then answers #N/A) only the first is made.
  */
-export function reportCharts(sheet: string, x: ColumnRef, y: ColumnRef, names: { x: string; y: string }, pairs: number): ReportChartSpec[] {
+export function reportCharts(sheet: string, x: ColumnRef, y: ColumnRef, names: { x: string; y: string }, pairs: number, dataRows = pairs): ReportChartSpec[] {
   const place = (k: number) => ({ at: REPORT_CHART_PLACES[k].at, to: REPORT_CHART_PLACES[k].to });
   const specs: ReportChartSpec[] = [
     { title: `${names.y} against ${names.x}`, x: formatBlock(x.block), y: formatBlock(y.block), xTitle: names.x, yTitle: names.y, ...place(0), trendline: true },
   ];
   if (pairs < 3) return specs;
-  const cells = residualCells(sheet, pairs);
+  const cells = residualCells(sheet, Math.max(pairs, dataRows));
   specs.push(
     { title: `Residuals of ${names.y} against the fitted values`, x: cells.fitted, y: cells.residuals, xTitle: `Fitted ${names.y}`, yTitle: 'Residual', ...place(1), trendline: false },
     { title: `Residuals of ${names.y} in row order`, x: cells.rows, y: cells.residuals, xTitle: `Sheet row (${x.block.sheet})`, yTitle: 'Residual', ...place(2), trendline: false },

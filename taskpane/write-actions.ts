@@ -102,7 +102,7 @@ export function writeActions(wb: Workbook, subject: () => WriteSubject | null): 
       const cells = reportSheetCells(xr, yr, names, s.options, new Date(), compare);
       const name = await wb.addSheet('Covary report', cells);
       const rows = xr.block.lastRow - xr.block.firstRow + 1;
-      const charts = await addScatter(name, reportCharts(name, xr, yr, names, completePairCount(s.reads[0].numbers, s.reads[1].numbers)), rows);
+      const charts = await addScatter(name, reportCharts(name, xr, yr, names, completePairCount(s.reads[0].numbers, s.reads[1].numbers), rows), rows);
       status.textContent = `Report written to the sheet "${name}"${charts}.`;
     } catch (e) {
       status.textContent = `Could not write the report sheet: ${e instanceof Error ? e.message : String(e)}`;
