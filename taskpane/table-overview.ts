@@ -197,11 +197,10 @@ export function partialReading(v: PartialView, names: { x: string; y: string }):
   const partZero = zeroIn(v.lower, v.upper);
   const why = `${held} may be a common cause of both, or a step between them; the numbers cannot tell which.`;
   if (!plainZero && partZero) return `Once ${held} is held fixed, no correlation between ${names.x} and ${names.y} is left that these rows can tell from zero. ${why}`;
-  if (plainZero && !partZero) return `${names.x} and ${names.y} show a correlation only once ${held} is held fixed: ${held} hides it in the plain figures.`;
+  if (plainZero && !partZero) return `${names.x} and ${names.y} show a correlation only once ${held} is held fixed: ${held} may mask it in the plain figures, or may be a result of both, which holding it fixed can create; the numbers cannot tell which.`;
   if (!partZero && Math.sign(v.r) !== Math.sign(v.plain)) return `Holding ${held} fixed reverses the direction of the correlation: read neither figure alone.`;
   if (partZero) return `Neither with nor without ${held} held fixed do these rows show a correlation they can tell from zero.`;
-  const shrink = Math.abs(v.r) < Math.abs(v.plain) * 0.7;
-  return shrink
-    ? `The correlation is weaker with ${held} held fixed but still there: part of it goes with ${held}.`
-    : `Holding ${held} fixed changes little: the correlation is not explained by ${held}.`;
+  if (Math.abs(v.r) < Math.abs(v.plain) * 0.7) return `The correlation is weaker with ${held} held fixed but still there: part of it goes with ${held}.`;
+  if (Math.abs(v.r) > Math.abs(v.plain) / 0.7) return `The correlation is stronger with ${held} held fixed: ${held} may mask part of it in the plain figures, or may be a result of both; the numbers cannot tell which.`;
+  return `Holding ${held} fixed changes little: the correlation does not go with ${held}.`;
 }

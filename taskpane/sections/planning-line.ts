@@ -59,7 +59,7 @@ export class PlanningLine {
       el('thead', {}, [el('tr', {}, ['True correlation', 'Chance these rows find it', 'Rows for 8 in 10'].map((h) => el('th', { text: h, attrs: { scope: 'col' } })))]),
       this.body,
     ]);
-    this.input = el('input', { class: 'cv-input cv-planning-input', testid: 'planning-target', attrs: { type: 'text', inputmode: 'decimal', value: '0.2', 'aria-label': 'True correlation to plan for', 'aria-describedby': 'cv-planning-answer', size: '5', autocomplete: 'off' } });
+    this.input = el('input', { class: 'cv-input cv-planning-input', testid: 'planning-target', attrs: { type: 'text', inputmode: 'decimal', value: '0.2', 'aria-describedby': 'cv-planning-answer', size: '5', autocomplete: 'off' } });
     this.answer = el('span', { class: 'cv-planning-answer', testid: 'planning-answer', attrs: { id: 'cv-planning-answer', role: 'status' } });
     this.note = el('p', { class: 'cv-planning-note cv-muted', testid: 'planning-note' });
     this.root = el('div', { class: 'cv-planning', testid: 'planning', attrs: { role: 'group', 'aria-label': 'Planning at these rows' } }, [
@@ -113,13 +113,18 @@ export class PlanningLine {
     const rho = parseTarget(this.input.value);
     this.input.setAttribute('aria-invalid', rho === null ? 'true' : 'false');
     if (rho === null) {
-      this.answer.textContent = 'Type a correlation between 0 and 1, such as 0.25 or 25%.';
+      this.say('Type a correlation between 0 and 1, such as 0.25 or 25%.');
       return;
     }
     const opts = { alpha: this.alpha, tail: 'both' as const };
     const n1 = Math.min(this.n, MAX_PLANNING_N);
     const power = this.remember(`p|${n1}|${this.alpha}|${rho}`, () => correlationPower(rho, n1, opts).power);
-    this.answer.textContent = `A true correlation of ${shortR(Math.abs(rho))} is found ${percent(power)} of the time with ${formatCount(this.n)} pairs; ${this.rowsFor(rho, this.alpha)} rows find it 8 times in 10.`;
+    this.say(`A true correlation of ${shortR(Math.abs(rho))} is found ${percent(power)} of the time with ${formatCount(this.n)} pairs; ${this.rowsFor(rho, this.alpha)} rows find it 8 times in 10.`);
+  }
+
+  /** The answer is a live region: it changes only when its words do, so a redraw that keeps n says nothing. */
+  private say(text: string): void {
+    if (this.answer.textContent !== text) this.answer.textContent = text;
   }
 
   private remember(key: string, find: () => number): number {

@@ -74,6 +74,7 @@ export class TableSection {
   private readonly partialBox: HTMLElement;
   private readonly partialTiles: { r: Tile; interval: Tile; p: Tile; n: Tile };
   private readonly partialText: HTMLElement;
+  private readonly partialSaid: HTMLElement;
   private readonly scheduler: LiveScheduler;
   private readonly observer: IntersectionObserver | null = null;
   private readonly resizer: ResizeObserver | null = null;
@@ -86,6 +87,8 @@ export class TableSection {
   /** Ticked control columns, by name, for the table they were ticked in. */
   private ticked = new Set<string>();
   private tickedTable = '';
+  /** Whether the main pair sits on the section's table rows (drawControls decides). */
+  private partialAllowed = false;
   private unwatch: (() => void) | null = null;
   private watchedKey = '';
   private destroyed = false;
@@ -113,7 +116,9 @@ export class TableSection {
       n: tile('Complete rows', 'partial-n'),
     };
     this.partialText = el('p', { class: 'cv-partial-reading', testid: TABLE_TEST_IDS.partialReading });
-    this.partialBox = el('div', { class: 'cv-partial', testid: TABLE_TEST_IDS.partial, attrs: { 'aria-live': 'polite' } });
+    this.partialBox = el('div', { class: 'cv-partial', testid: TABLE_TEST_IDS.partial });
+    // Said when the user ticks or unticks a column, not on every redraw of the table.
+    this.partialSaid = el('p', { class: 'cv-visually-hidden', attrs: { role: 'status' } });
     fill(body, [
       el('p', { class: 'cv-hint', text: 'Every numeric column of a table against every other: the pairs worth a closer look, and what is left of the main pair once other columns are held fixed.' }),
       el('div', { class: 'cv-field-grid' }, [el('label', { class: 'cv-field-label', text: 'Table' }), this.tableSelect]),
@@ -126,6 +131,7 @@ export class TableSection {
       el('h3', { class: 'cv-subhead', text: 'Partial correlation' }),
       this.controlsBox,
       this.partialBox,
+      this.partialSaid,
     ]);
     this.scheduler = new LiveScheduler(() => this.refresh(), 200);
     // The pane can be made narrower or wider at any time.
@@ -288,7 +294,8 @@ export class TableSection {
         const step = heatStep(r);
         const strong = p < alpha;
         const isMain = mainPositions !== null && ((mainPositions[0] === j && mainPositions[1] === i) || (mainPositions[0] === i && mainPositions[1] === j));
-        const words = `${c.name} with ${d.name}: ${name} r = ${formatR(r)}, Holm-adjusted p ${pWords(p)}, ${formatCount(n)} pairs${isMain ? ' (the main pair)' : ''}`;
+        // The cell's own text in its spoken label (WCAG 2.5.3, label in name).
+        const words = `${c.name} with ${d.name}: ${name} r = ${cellText(r)}, Holm-adjusted p ${pWords(p)}, ${formatCount(n)} pairs${isMain ? ' (the main pair)' : ''}`;
         const b = el('button', {
           class: `cv-heat-cell cv-heat-${step.sign}-${step.level}${strong ? ' cv-heat-strong' : ''}${isMain ? ' cv-heat-main' : ''}`,
           text: cellText(r),
@@ -371,17 +378,30 @@ export class TableSection {
   private drawControls(view: OverviewMatrix | { error: string }, main: ReturnType<TableSectionHost['main']>): void {
     const usable = isOverviewFailure(view) ? [] : view.columns;
     const own = main ? main.reads : null;
+    // Rows are matched by sheet row: only a pair on the table's own rows can have the table's columns held fixed
+    // (another table on the same sheet holds other records).
+    const rowsOf = this.columns[0]?.read;
+    const onTableRows = !!own && !!rowsOf && own.every((r) => r.sheet === rowsOf.sheet && r.firstRow === rowsOf.firstRow && r.numbers.length === rowsOf.numbers.length);
+    this.partialAllowed = onTableRows;
     const candidates = this.columns.filter((c) => usable.some((u) => u.position === c.position) && !(own && own.some((r) => sameColumn(r, c.read))));
     for (const name of [...this.ticked]) if (!candidates.some((c) => c.name === name)) this.ticked.delete(name);
-    const legendText = main ? `Hold fixed, for ${main.reads[1].header} with ${main.reads[0].header}` : 'Hold fixed (pick the main pair above first)';
+    const legendText = !main
+      ? 'Hold fixed (pick the main pair above first)'
+      : onTableRows
+        ? `Hold fixed, for ${main.reads[1].header} with ${main.reads[0].header}`
+        : `Hold fixed: the main pair is not on this table's rows; pick X and Y from ${this.tableSelect.value} to hold its columns fixed`;
     const boxes = candidates.map((c) => {
       const box = el('input', { testid: `partial-control-${c.position}`, attrs: { type: 'checkbox', value: c.name } });
       box.checked = this.ticked.has(c.name);
-      box.disabled = main === null;
+      box.disabled = !onTableRows;
       box.addEventListener('change', () => {
         if (box.checked) this.ticked.add(c.name);
         else this.ticked.delete(c.name);
         this.drawPartial(this.host.main());
+        const result = this.partialBox.contains(this.partialText);
+        this.partialSaid.textContent = result
+          ? `Partial r ${this.partialTiles.r.value.textContent}, p ${this.partialTiles.p.value.textContent}. ${this.partialText.textContent}`
+          : (this.partialBox.textContent ?? '');
       });
       return el('label', { class: 'cv-check' }, [box, el('span', { text: c.name })]);
     });
@@ -392,7 +412,7 @@ export class TableSection {
   }
 
   private drawPartial(main: ReturnType<TableSectionHost['main']>): void {
-    if (!main) {
+    if (!main || !this.partialAllowed) {
       fill(this.partialBox, []);
       return;
     }

@@ -9,7 +9,7 @@
  */
 import * as fs from 'fs';
 import * as path from 'path';
-import { BrowserSession, RunningWorkbench, afterPanelRedraw, columnNumbers, openBrowser, panelIdle, pearsonReference, screenshot, settle, startWorkbench, typeInto } from './harness';
+import { BrowserSession, RunningWorkbench, afterPanelRedraw, columnNumbers, completePairs, openWorkbenchWithPanel, pearsonReference, screenshot, typeInto } from './harness';
 
 jest.setTimeout(120000);
 
@@ -23,23 +23,8 @@ const testid = (id: string) => page().locator(`[data-testid="${id}"]`);
 /** The North table's columns by letter, as the demo sheet lays them out (header in row 1, data rows 2-49). */
 const COLUMN = { mechanics: 'B', repairs: 'C', floor: 'F', rent: 'G' } as const;
 
-async function pairOf(a: string, b: string): Promise<{ x: number[]; y: number[] }> {
-  const xs = await columnNumbers(page(), 'North', a, 2, 49);
-  const ys = await columnNumbers(page(), 'North', b, 2, 49);
-  const x: number[] = [];
-  const y: number[] = [];
-  xs.forEach((v, i) => {
-    const w = ys[i];
-    if (v !== null && w !== null) {
-      x.push(v);
-      y.push(w);
-    }
-  });
-  return { x, y };
-}
-
 async function rOf(a: string, b: string): Promise<number> {
-  const { x, y } = await pairOf(a, b);
+  const { x, y } = await completePairs(page(), 'North', a, b, 2, 49);
   return pearsonReference(x, y);
 }
 
@@ -55,12 +40,7 @@ const renderCount = () => page().evaluate(() => Number(document.querySelector('[
 const heatCell = (i: number, j: number) => page().locator(`[data-testid="heatmap"] button[data-i="${i}"][data-j="${j}"]`);
 
 beforeAll(async () => {
-  server = await startWorkbench();
-  browser = await openBrowser(server.origin);
-  await browser.page.goto(server.url);
-  await settle(browser.page);
-  await browser.page.waitForFunction(() => window.__covaryPanel?.summary() != null, undefined, { timeout: 30000 });
-  await panelIdle(browser.page);
+  ({ server, browser } = await openWorkbenchWithPanel());
 }, 300000);
 
 afterAll(async () => {
@@ -82,7 +62,10 @@ describe('the heatmap of the table', () => {
     expect(Math.abs(rent - (await rOf(COLUMN.floor, COLUMN.rent)))).toBeLessThan(1e-9);
     await heatCell(5, 4).hover();
     const detail = await testid('heatmap-detail').textContent();
-    expect(detail).toMatch(/^Rent per month with Floor area m²: Pearson r = 0\.\d\d, Holm-adjusted p [=<] /);
+    expect(detail).toMatch(/^Rent per month with Floor area m²: Pearson r = \.\d\d, Holm-adjusted p [=<] /);
+    // The cell's text is part of its spoken label (WCAG 2.5.3), for negative cells too.
+    const negative = page().locator('[data-testid="heatmap"] button', { hasText: '\u2212' }).first();
+    await expect(negative.getAttribute('aria-label')).resolves.toContain((await negative.textContent())!);
     await expect(heatCell(5, 4).getAttribute('title')).resolves.toContain('Holm-adjusted p');
     await testid('section-table').screenshot({ path: path.join(__dirname, '../../test-artifacts', 'panel-section-table.png') });
   });

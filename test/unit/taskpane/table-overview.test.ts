@@ -108,6 +108,14 @@ describe('the partial correlation (psych::partial.r on complete rows)', () => {
     expect(partialOf(x, y, [other], 0.95)).toEqual({ error: 'parcels is on the sheet Elsewhere and the pair on Depot: a partial correlation matches rows on one sheet.' });
   });
 
+  test('a partial r much stronger than the plain one is not read as "changes little", and no cause is claimed', () => {
+    const text = partialReading(
+      { r: 0.6, lower: 0.4, upper: 0.75, p: 1e-5, n: 60, plain: 0.3, plainLower: 0.05, plainUpper: 0.52, controls: ['Tenure', 'Grade'], level: 0.95 },
+      { x: 'Training hours', y: 'Sales' },
+    );
+    expect(text).toBe('The correlation is stronger with Tenure and Grade held fixed: Tenure and Grade may mask part of it in the plain figures, or may be a result of both; the numbers cannot tell which.');
+  });
+
   test('the reading says when holding the columns fixed leaves nothing to tell from zero', () => {
     const text = partialReading(
       { r: 0.05, lower: -0.3, upper: 0.4, p: 0.7, n: 40, plain: 0.5, plainLower: 0.2, plainUpper: 0.7, controls: ['Tenure'], level: 0.95 },
