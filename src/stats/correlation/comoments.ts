@@ -92,12 +92,32 @@ export function coMoments(x: ArrayLike<number>, y: ArrayLike<number>): CoMoments
     const dy = dx >= 0 ? decimalPlaces(y) : -1;
     if (dx >= 0 && dy >= 0) return decimalCoMoments(x, y, dx, dy);
   }
-  const scaleX = powerOfTwoScale(x);
-  const scaleY = powerOfTwoScale(y);
-  const mx = scaledMean(x, scaleX);
-  const my = scaledMean(y, scaleY);
+  // Both columns in each pass (the same sums as column by column, in the same order: one pass instead of two).
+  let ax = 0;
+  let ay = 0;
+  for (let i = 0; i < n; i++) {
+    const a = Math.abs(x[i]);
+    const b = Math.abs(y[i]);
+    if (a > ax) ax = a;
+    if (b > ay) ay = b;
+  }
+  const scaleX = powerOfTwoScale([ax]);
+  const scaleY = powerOfTwoScale([ay]);
   const ix = 1 / scaleX;
   const iy = 1 / scaleY;
+  let sumX = 0, compX = 0, sumY = 0, compY = 0;
+  for (let i = 0; i < n; i++) {
+    const a = x[i] * ix;
+    const b = y[i] * iy;
+    const t = sumX + a;
+    compX += Math.abs(sumX) >= Math.abs(a) ? sumX - t + a : a - t + sumX;
+    sumX = t;
+    const u = sumY + b;
+    compY += Math.abs(sumY) >= Math.abs(b) ? sumY - u + b : b - u + sumY;
+    sumY = u;
+  }
+  const mx = (sumX + compX) / n;
+  const my = (sumY + compY) / n;
   let sdx = 0, sdy = 0, sxx = 0, syy = 0, sxy = 0;
   for (let i = 0; i < n; i++) {
     const dx = x[i] * ix - mx;
