@@ -25,11 +25,29 @@ interface Entry {
   pins: number;
 }
 
-/** 32-bit FNV-1a over the bit patterns of the values (NaN, the mark of a cell that does not count, is canonical). */
+/**
+ * 32-bit FNV-1a over the bit patterns of the values (NaN, the mark of a cell that does not count, is canonical),
+ * in four interleaved lanes folded together at the end: one FNV chain waits on each multiply before the next,
+ * four independent chains keep the multiplier busy (about a quarter of the time on a million rows). Only a key:
+ * a hit is confirmed value by value, so the hash's quality decides how often a collision costs a recomputation.
+ */
 function hashValues(h: number, v: Float64Array): number {
   const w = new Uint32Array(v.buffer, v.byteOffset, v.length * 2);
-  for (let i = 0; i < w.length; i++) h = Math.imul(h ^ w[i], 0x01000193);
-  return h >>> 0;
+  const P = 0x01000193;
+  let h0 = h;
+  let h1 = h ^ 0x9e3779b9;
+  let h2 = h ^ 0x85ebca6b;
+  let h3 = h ^ 0xc2b2ae35;
+  const m = w.length - (w.length % 4);
+  for (let i = 0; i < m; i += 4) {
+    h0 = Math.imul(h0 ^ w[i], P);
+    h1 = Math.imul(h1 ^ w[i + 1], P);
+    h2 = Math.imul(h2 ^ w[i + 2], P);
+    h3 = Math.imul(h3 ^ w[i + 3], P);
+  }
+  for (let i = m; i < w.length; i++) h0 = Math.imul(h0 ^ w[i], P);
+  for (const lane of [h1, h2, h3]) h0 = Math.imul(h0 ^ lane, P);
+  return h0 >>> 0;
 }
 
 function sameValues(a: Float64Array, b: Float64Array): boolean {
