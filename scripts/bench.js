@@ -15,6 +15,9 @@
  * deserializes them; --arrays kept reuses one set (edited in one cell per call), the older, kinder measure.
  * Each kind reports its ratios; the first call of each function is reported apart from the median.
  *
+ * "read cells only" times reading the host's two columns into numbers and nothing else: the floor under every
+ * cell function, reported beside scipy on numpy arrays so a ratio target below it shows as such.
+ *
  * Options: --sizes 1e3,1e4,1e5,1e6   --runs 3   --kinds full,cents,ties   --arrays fresh|kept   --json out.json
  */
 const fs = require('fs');
@@ -250,6 +253,15 @@ for (const kind of KINDS) for (const n of SIZES) {
       call('FLAGS')(a, b, null); return call('CHECKS')(a, b, null);
     }).ms;
   }
+  // The floor: reading the host's cells alone into two Float64Arrays (a type test per cell, NaN for the rest, as
+  // the functions read them), no statistics. Whatever a cell function does costs at least this.
+  row['read cells only'] = time(fresh, (a, b) => {
+    const u = new Float64Array(a.length);
+    const w = new Float64Array(b.length);
+    for (let i = 0; i < a.length; i++) { const v = a[i][0]; u[i] = typeof v === 'number' ? v : NaN; }
+    for (let i = 0; i < b.length; i++) { const v = b[i][0]; w[i] = typeof v === 'number' ? v : NaN; }
+    return u[0] + w[0];
+  }).ms;
   const xs = Array.from(x);
   const ysA = Array.from(y);
   row['jstat corrcoeff'] = time(() => [xs, ysA], (a, b) => jStat.corrcoeff(a, b)).ms;
@@ -279,7 +291,7 @@ for (const kind of KINDS) for (const n of SIZES) {
   rows.push(row);
 }
 
-const cols = ['COEF pearson', 'COEF spearman', 'COEF kendall', 'INTERVAL', 'PVALUE', 'FLAGS', 'CHECKS', 'REPORT', 'recalc (5 fns)',
+const cols = ['read cells only', 'COEF pearson', 'COEF spearman', 'COEF kendall', 'INTERVAL', 'PVALUE', 'FLAGS', 'CHECKS', 'REPORT', 'recalc (5 fns)',
   'jstat corrcoeff', 'jstat spearmancoeff', 'ss sampleCorrelation', 'scipy pearsonr', 'scipy spearmanr', 'scipy kendalltau', 'scipy pearsonr (cells)', 'scipy spearmanr (cells)', 'scipy kendalltau (cells)', 'statsmodels checks'];
 const present = cols.filter((c) => rows.some((r) => r[c] !== undefined));
 console.log('\nTime per call (ms, median; the first call apart below) by data kind and number of complete pairs n:');
@@ -292,7 +304,7 @@ console.log('\nRatios project / peer (below 1: Covary is faster):');
 const pairsOfInterest = [
   ['COEF pearson', 'scipy pearsonr', 0.5], ['COEF spearman', 'scipy spearmanr', 0.5], ['COEF kendall', 'scipy kendalltau', 0.5],
   ['COEF pearson', 'scipy pearsonr (cells)'], ['COEF spearman', 'scipy spearmanr (cells)'], ['COEF kendall', 'scipy kendalltau (cells)'],
-  ['CHECKS', 'statsmodels checks', 0.5], ['COEF pearson', 'jstat corrcoeff'], ['COEF spearman', 'jstat spearmancoeff'], ['COEF pearson', 'ss sampleCorrelation'],
+  ['CHECKS', 'statsmodels checks', 0.5], ['read cells only', 'scipy pearsonr'], ['COEF pearson', 'read cells only'], ['COEF pearson', 'jstat corrcoeff'], ['COEF spearman', 'jstat spearmancoeff'], ['COEF pearson', 'ss sampleCorrelation'],
 ];
 for (const r of rows) {
   for (const [ours, peer, target] of pairsOfInterest) {
