@@ -44,7 +44,10 @@ export function powerOfTwoScale(v: ArrayLike<number>): number {
 
 /** Most decimal places tried when reading a column as exact decimals. */
 const MAX_PLACES = 9;
-const POW10 = [1, 10, 100, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9];
+/** 10^d for the decimal places tried (shared with residuals.ts, which reads decimals the same way). */
+export const POW10 = [1, 10, 100, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9];
+/** Below this many rows a column is tried as exact decimals (the sums of its integers stay exact well past it). */
+export const DECIMAL_ROWS = 1e7;
 
 /**
  * The smallest d <= 9 such that every value is the double nearest to some integer / 10^d with |integer| < 2^52,
@@ -87,7 +90,7 @@ export function scaledMean(v: ArrayLike<number>, scale: number): number {
 export function coMoments(x: ArrayLike<number>, y: ArrayLike<number>): CoMoments {
   const n = x.length;
   if (y.length !== n) throw new StatsInputError('unequal-length', 'x and y must hold the same number of values');
-  if (n > 0 && n < 1e7) {
+  if (n > 0 && n < DECIMAL_ROWS) {
     const dx = decimalPlaces(x);
     const dy = dx >= 0 ? decimalPlaces(y) : -1;
     if (dx >= 0 && dy >= 0) return decimalCoMoments(x, y, dx, dy);

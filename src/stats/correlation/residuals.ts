@@ -22,7 +22,7 @@
  *
  * Pure and host-free. Allocates the two result arrays and nothing else of size n.
  */
-import { decimalPlaces, powerOfTwoScale, scaledMean } from './comoments';
+import { DECIMAL_ROWS, decimalPlaces, POW10, powerOfTwoScale, scaledMean } from './comoments';
 import { StatsInputError } from '../types';
 
 /** The straight line's fitted values and residuals, pair by pair. */
@@ -39,16 +39,11 @@ export interface LineResiduals {
   residuals: Float64Array;
 }
 
-/** Most rows for which the decimal reading is tried (the sums of integers stay exact well past that). */
-const DECIMAL_ROWS = 1e7;
-const POW10 = [1, 10, 100, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9];
-
 /** A column's mean and its deviations from it, in units of `scale` (deviation_i = out[i] * scale). */
 interface Centred {
   mean: number;
   scale: number;
 }
-
 
 /** Divides the deviations by a power of two near their largest magnitude (exact) and returns that factor. */
 function rescale(out: Float64Array): number {
