@@ -102,7 +102,7 @@ export function writeActions(wb: Workbook, subject: () => WriteSubject | null): 
       const cells = reportSheetCells(xr, yr, names, s.options, new Date(), compare);
       const name = await wb.addSheet('Covary report', cells);
       const rows = xr.block.lastRow - xr.block.firstRow + 1;
-      const charts = await addScatter(name, reportCharts(name, xr, yr, names, completePairCount(s.reads[0].numbers, s.reads[1].numbers), rows), rows);
+      const charts = await addReportCharts(name, reportCharts(name, xr, yr, names, completePairCount(s.reads[0].numbers, s.reads[1].numbers), rows), rows);
       status.textContent = `Report written to the sheet "${name}"${charts}.`;
     } catch (e) {
       status.textContent = `Could not write the report sheet: ${e instanceof Error ? e.message : String(e)}`;
@@ -115,7 +115,7 @@ export function writeActions(wb: Workbook, subject: () => WriteSubject | null): 
    * from the report's RESIDUALS spill, stacked in columns M-T. Past CHART_ROWS data rows none is added. A chart
    * the host refuses does not stop the others. Returns what to add to the status line.
    */
-  async function addScatter(sheet: string, specs: ReportChartSpec[], rows: number): Promise<string> {
+  async function addReportCharts(sheet: string, specs: ReportChartSpec[], rows: number): Promise<string> {
     if (!wb.addChart) return '';
     if (rows > CHART_ROWS) return ` (no charts: ${rows.toLocaleString('en-US')} rows is past the ${CHART_ROWS.toLocaleString('en-US')} a chart shows well; the panel draws a sample)`;
     const failed: string[] = [];

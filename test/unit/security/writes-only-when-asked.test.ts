@@ -7,7 +7,7 @@
  *    ExcelWorkbook.addSheet or ExcelWorkbook.addChart (taskpane/excel-workbook.ts), or in writeInBlocks, which
  *    only those call;
  * 2. those are called only from the button handlers putFormulas and writeReport (taskpane/write-actions.ts), or
- *    from addScatter, which only writeReport calls;
+ *    from addReportCharts, which only writeReport calls;
  * 3. the handlers are referenced nowhere but in the two buttons' click listeners.
  * The cell functions cannot write at all: in a shared runtime custom functions may only read, and the bundle never
  * touches Office or Excel (host-contract.test.ts, every-function.test.ts).
@@ -25,7 +25,7 @@ const WRITE_PROPERTIES = new Set(['values', 'formulas', 'formulasLocal', 'formul
 const WRITE_METHODS = new Set(['delete', 'clear', 'insert', 'copyFrom', 'moveTo', 'merge', 'unmerge', 'setCellProperties', 'setRowProperties', 'setColumnProperties', 'autofitColumns', 'autofitRows', 'addTable', 'addFromBase64', 'insertWorksheetsFromBase64', 'addRow', 'addColumn', 'set', 'setValue']);
 const ALLOWED_WRITERS = new Set(['writeCells', 'addSheet', 'addChart']);
 /** Helpers that write or call a writer, each with the only functions allowed to call it. */
-const HELPERS: Record<string, string[]> = { writeInBlocks: ['writeCells', 'addSheet'], addScatter: ['writeReport'] };
+const HELPERS: Record<string, string[]> = { writeInBlocks: ['writeCells', 'addSheet'], addReportCharts: ['writeReport'] };
 const isHelper = (name: string) => Object.prototype.hasOwnProperty.call(HELPERS, name);
 const BUTTON_HANDLERS = new Set(['putFormulas', 'writeReport']);
 
@@ -146,7 +146,7 @@ describe('the panel writes only where the user asks', () => {
         if (isHelper(callee)) add(n, callee);
       }),
     );
-    expect(calls.map((c) => c.what).sort()).toEqual(expect.arrayContaining(['addScatter', 'writeInBlocks']));
+    expect(calls.map((c) => c.what).sort()).toEqual(expect.arrayContaining(['addReportCharts', 'writeInBlocks']));
     expect(calls.filter((c) => !HELPERS[c.what].includes(c.inside))).toEqual([]);
   });
 
