@@ -60,6 +60,12 @@ export function formatPValue(p: number): string {
   return p.toFixed(3);
 }
 
+/** A p-value after "p" in a sentence: "= 0.003", or "< 0.001" as formatPValue gives it. */
+export function pClause(p: number): string {
+  const s = formatPValue(p);
+  return s.startsWith('<') ? s : `= ${s}`;
+}
+
 /** A whole count with thousands separators. */
 export function formatCount(n: number): string {
   return Math.round(n).toLocaleString('en-US');

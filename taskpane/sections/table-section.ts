@@ -12,7 +12,7 @@
  * gives the strength, while the sign is printed in the cell and negative cells are striped. Blue-green against
  * brown stays apart for the common red-green colour deficiencies.
  */
-import { formatCount, formatPValue, formatR } from '../../src/stats/format';
+import { formatCount, formatPValue, formatR, pClause } from '../../src/stats/format';
 import { METHOD_LABELS, Method } from '../../src/stats/types';
 import { clear, el, fill, onIdle, select, setOptions } from '../dom';
 import { LiveScheduler } from '../live-scheduler';
@@ -295,7 +295,7 @@ export class TableSection {
         const strong = p < alpha;
         const isMain = mainPositions !== null && ((mainPositions[0] === j && mainPositions[1] === i) || (mainPositions[0] === i && mainPositions[1] === j));
         // The cell's own text in its spoken label (WCAG 2.5.3, label in name).
-        const words = `${c.name} with ${d.name}: ${name} r = ${cellText(r)}, Holm-adjusted p ${pWords(p)}, ${formatCount(n)} pairs${isMain ? ' (the main pair)' : ''}`;
+        const words = `${c.name} with ${d.name}: ${name} r = ${cellText(r)}, Holm-adjusted p ${pClause(p)}, ${formatCount(n)} pairs${isMain ? ' (the main pair)' : ''}`;
         const b = el('button', {
           class: `cv-heat-cell cv-heat-${step.sign}-${step.level}${strong ? ' cv-heat-strong' : ''}${isMain ? ' cv-heat-main' : ''}`,
           text: cellText(r),
@@ -448,11 +448,6 @@ export class TableSection {
       el('p', { class: 'cv-chart-note', text: 'Pearson\u2019s r between what is left of each column once the ticked columns are fitted by least squares (Fisher\u2019s t test with n \u2212 2 \u2212 k degrees of freedom), on the rows where every one of them holds a number.' }),
     ]);
   }
-}
-
-function pWords(p: number): string {
-  const s = formatPValue(p);
-  return s.startsWith('<') ? s : `= ${s}`;
 }
 
 function sameColumn(a: NumericColumnRead, b: NumericColumnRead): boolean {

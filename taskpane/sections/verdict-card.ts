@@ -4,7 +4,7 @@
  * equivalence test and the Bayes factor), with the smallest correlation these rows can detect. The same lines as
  * COVARY.SENSITIVITY and COVARY.REPORT.
  */
-import { formatCount, formatPValue, formatR } from '../../src/stats/format';
+import { formatCount, formatR, pClause } from '../../src/stats/format';
 import type { Summary } from '../../src/stats/verdict/sensitivity';
 import { el, fill } from '../dom';
 import type { VerdictView } from '../relationship';
@@ -67,7 +67,7 @@ export class VerdictCard {
     if (v.equivalence) {
       const e = v.equivalence;
       items.push(e.negligible
-        ? `Negligible: the ${Math.round(e.level * 100)}% interval, ${formatR(e.lower)} to ${formatR(e.upper)}, lies within ±${e.bound} (equivalence test, p ${formatPValue(e.pValue).startsWith('<') ? formatPValue(e.pValue) : `= ${formatPValue(e.pValue)}`}).`
+        ? `Negligible: the ${Math.round(e.level * 100)}% interval, ${formatR(e.lower)} to ${formatR(e.upper)}, lies within ±${e.bound} (equivalence test, p ${pClause(e.pValue)}).`
         : `Not shown to be negligible: the ${Math.round(e.level * 100)}% interval, ${formatR(e.lower)} to ${formatR(e.upper)}, reaches beyond ±${e.bound} (equivalence test).`);
     }
     if (v.bayes) {
