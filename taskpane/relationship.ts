@@ -142,7 +142,7 @@ export class RedrawMemory {
    */
   seedSorts(prepared: PreparedPairs): void {
     const cols = [prepared.x, prepared.y];
-    const keys = [['sortedX', 'ranksX'], ['sortedY', 'ranksY']] as const;
+    const keys = SORT_KEYS;
     for (let c = 0; c < 2; c++) {
       const kept = this.sorts[c];
       if (!kept.sorted) continue;
@@ -161,7 +161,7 @@ export class RedrawMemory {
   /** Keeps what this redraw sorted (before the prepared pairs are released), for the next one. */
   keepSorts(prepared: PreparedPairs): void {
     const cols = [prepared.x, prepared.y];
-    const keys = [['sortedX', 'ranksX'], ['sortedY', 'ranksY']] as const;
+    const keys = SORT_KEYS;
     for (let c = 0; c < 2; c++) {
       const sorted = prepared.keep(keys[c][0]) as KeyedOrder | undefined;
       if (!sorted) continue;
@@ -222,6 +222,9 @@ export class RedrawMemory {
     return { x: m.curve.x.slice(), y: m.curve.y.slice() };
   }
 }
+
+/** The prepared pairs' memo keys of each column's sorted order and ranks, x then y. */
+const SORT_KEYS = [['sortedX', 'ranksX'], ['sortedY', 'ranksY']] as const;
 
 /** Most changed places for which a sorted order is mended rather than sorted again (an edit, a short paste). */
 const RESORT_LIMIT = 8;
