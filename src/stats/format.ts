@@ -60,6 +60,12 @@ export function formatPValue(p: number): string {
   return p.toFixed(3);
 }
 
+/** A correlation magnitude for a sentence: formatR's two decimals, or two significant digits below 0.1 (0.0028,
+ *  not 0.00), for the smallest correlation a sample detects. */
+export function formatSmallR(r: number): string {
+  return r < 0.1 ? String(Number(r.toPrecision(2))) : formatR(r);
+}
+
 /** A p-value after "p" in a sentence: "= 0.003", or "< 0.001" as formatPValue gives it. */
 export function pClause(p: number): string {
   const s = formatPValue(p);

@@ -8,7 +8,7 @@
  * restates the p-value (Hoenig & Heisey 2001, "The abuse of power", The American Statistician 55:19-24).
  */
 import { correlationPower, detectableCorrelation, MAX_PLANNING_N, MIN_PLANNING_N, sampleSizeForCorrelation } from '../../src/stats/planning/power';
-import { formatCount, formatR } from '../../src/stats/format';
+import { formatCount, formatR, formatSmallR } from '../../src/stats/format';
 import type { Method } from '../../src/stats/types';
 import { el, fill } from '../dom';
 
@@ -96,7 +96,7 @@ export class PlanningLine {
     const n1 = Math.min(n, MAX_PLANNING_N);
     const d8 = this.remember(`d|${n1}|${alpha}|0.8`, () => detectableCorrelation(n1, 0.8, opts).rho);
     const d9 = this.remember(`d|${n1}|${alpha}|0.9`, () => detectableCorrelation(n1, 0.9, opts).rho);
-    this.lead.textContent = `Smallest true correlation these ${formatCount(n)} pairs find 8 times in 10: ${shortR(d8)}; 9 times in 10: ${shortR(d9)} (two-sided test, alpha ${a}).`;
+    this.lead.textContent = `Smallest true correlation these ${formatCount(n)} pairs find 8 times in 10: ${formatSmallR(d8)}; 9 times in 10: ${formatSmallR(d9)} (two-sided test, alpha ${a}).`;
     fill(this.body, PLANNING_SIZES.map((s) => el('tr', {}, [
       el('th', { text: `${formatR(s.rho)} (${s.word})`, attrs: { scope: 'row' } }),
       el('td', { class: 'cv-num', text: percent(this.remember(`p|${n1}|${alpha}|${s.rho}`, () => correlationPower(s.rho, n1, opts).power)) }),
@@ -119,7 +119,7 @@ export class PlanningLine {
     const opts = { alpha: this.alpha, tail: 'both' as const };
     const n1 = Math.min(this.n, MAX_PLANNING_N);
     const power = this.remember(`p|${n1}|${this.alpha}|${rho}`, () => correlationPower(rho, n1, opts).power);
-    this.say(`A true correlation of ${shortR(Math.abs(rho))} is found ${percent(power)} of the time with ${formatCount(this.n)} pairs; ${this.rowsFor(rho, this.alpha)} rows find it 8 times in 10.`);
+    this.say(`A true correlation of ${formatSmallR(Math.abs(rho))} is found ${percent(power)} of the time with ${formatCount(this.n)} pairs; ${this.rowsFor(rho, this.alpha)} rows find it 8 times in 10.`);
   }
 
   /** The answer is a live region: it changes only when its words do, so a redraw that keeps n says nothing. */
@@ -148,9 +148,4 @@ export class PlanningLine {
     });
     return Number.isFinite(n) ? formatCount(n) : `over ${formatCount(MAX_PLANNING_N)}`;
   }
-}
-
-/** A correlation for a sentence: two decimals, or two significant digits below 0.1 (0.0028, not 0.00). */
-function shortR(r: number): string {
-  return r < 0.1 ? String(Number(r.toPrecision(2))) : formatR(r);
 }

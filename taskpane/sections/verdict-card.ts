@@ -4,7 +4,7 @@
  * equivalence test and the Bayes factor), with the smallest correlation these rows can detect. The same lines as
  * COVARY.SENSITIVITY and COVARY.REPORT.
  */
-import { formatCount, formatR, pClause } from '../../src/stats/format';
+import { formatCount, formatR, formatSmallR, pClause } from '../../src/stats/format';
 import type { Summary } from '../../src/stats/verdict/sensitivity';
 import { el, fill } from '../dom';
 import type { VerdictView } from '../relationship';
@@ -76,7 +76,7 @@ export class VerdictCard {
       items.push(`Bayes factor: the data are ${favour} (uniform prior on the correlation); at even prior odds that puts the chance of a correlation at ${Math.round(100 * b.posteriorProbability)}%. This is a probability of the hypothesis, which a p-value is not.`);
     }
     if (v.detectable !== null) {
-      const d = v.detectable < 0.1 ? String(Number(v.detectable.toPrecision(2))) : formatR(v.detectable);
+      const d = formatSmallR(v.detectable);
       const found = `With ${formatCount(n)} rows a correlation of ${d} or stronger is found 8 times in 10 (alpha ${Number((1 - level).toPrecision(3))})`;
       if (v.direction === 'none') items.push(`${found}; weaker ones are easily missed, so "${pct} includes zero" is not "no relationship".`);
       else if (v.detectable < 0.1) items.push(`${found}: at this size even a trivial correlation is significant, so judge it by its size and interval, not by its p-value.`);
