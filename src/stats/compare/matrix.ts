@@ -3,12 +3,11 @@
  * p-values adjusted across the k(k - 1)/2 distinct pairs.
  */
 import { PREDICTION_BUDGET_MS } from '../budget/call-budget';
-import { coMoments } from '../correlation/comoments';
 import { correlate } from '../correlation/correlate';
 import { pFromT, tFromR } from '../correlation/fisher';
 import { benjaminiHochbergAdjust, holmAdjust } from './p-adjust';
 import { assertVaries, clipUnit, pearsonFromMoments } from '../correlation/pearson';
-import { averageRanks } from '../correlation/ranks';
+import { averageRanks, rankCoMoments } from '../correlation/ranks';
 import { isRobust, Method, METHOD_LABELS, StatsInputError } from '../types';
 import { replicatesFor, skippedRedetects } from '../robust/robust';
 
@@ -173,7 +172,7 @@ interface PairAnswer {
  * per pair. test/unit/stats/compare/matrix.test.ts holds the two paths equal.
  */
 function spearmanFromRanks(rx: ArrayLike<number>, ry: ArrayLike<number>): PairAnswer {
-  const m = coMoments(rx, ry);
+  const m = rankCoMoments(rx, ry);
   assertVaries(m);
   const r = clipUnit(pearsonFromMoments(m));
   const df = rx.length - 2;

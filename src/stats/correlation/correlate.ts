@@ -1,6 +1,6 @@
 import { distinctUpToThree } from './distinct';
 import { exactDiscordantTails, KendallCounts, tauB, varianceOfS } from './kendall';
-import { assertVaries, clipUnit, pearsonFromMoments } from './pearson';
+import { assertValuesVary, assertVaries, clipUnit, pearsonFromMoments } from './pearson';
 import { PreparedPairs } from './prepared';
 import { fisherInterval, pFromT, pFromZ, tFromR } from './fisher';
 import { validTestOptions } from '../options';
@@ -184,7 +184,7 @@ function correlateClassical(prep: PreparedPairs, method: ClassicalMethod, tail: 
   const { x, y, n } = prep;
   if (n < 3) throw new StatsInputError('too-few', `only ${n} usable pairs: at least 3 are needed`);
   if (method === 'kendall') {
-    assertVaries(prep.moments);
+    assertValuesVary(x, y);
     const c = prep.kendall;
     const r = tauB(c);
     const pv = kendallPValue(c, tail);
@@ -196,7 +196,7 @@ function correlateClassical(prep: PreparedPairs, method: ClassicalMethod, tail: 
   let r: number;
   let name: CoefficientName;
   if (method === 'spearman') {
-    assertVaries(prep.moments);
+    assertValuesVary(x, y);
     const m = prep.rankMoments;
     assertVaries(m);
     r = perfectRanks(prep.ranksX, prep.ranksY) ?? pearsonFromMoments(m);

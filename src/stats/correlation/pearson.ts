@@ -6,6 +6,22 @@ export function clipUnit(r: number): number {
   return r > 1 ? 1 : r < -1 ? -1 : r;
 }
 
+/** Whether some value differs from the first (a scan that stops at the first difference; -0 equals 0). */
+function varies(v: ArrayLike<number>): boolean {
+  const first = v[0];
+  for (let i = 1; i < v.length; i++) if (v[i] !== first) return true;
+  return false;
+}
+
+/**
+ * Checks both columns vary, from the values themselves: for the rank coefficients, which need no co-moments (on
+ * varying data the scan stops within the first rows). Same messages as assertVaries.
+ */
+export function assertValuesVary(x: ArrayLike<number>, y: ArrayLike<number>, xName = 'x', yName = 'y'): void {
+  if (!varies(x)) throw new StatsInputError('constant', `${xName} is constant: a correlation needs variation in both columns`);
+  if (!varies(y)) throw new StatsInputError('constant', `${yName} is constant: a correlation needs variation in both columns`);
+}
+
 /** Checks both columns vary; the message names the column. */
 export function assertVaries(m: CoMoments, xName = 'x', yName = 'y'): void {
   if (!(m.sxx > 0)) throw new StatsInputError('constant', `${xName} is constant: a correlation needs variation in both columns`);

@@ -1,6 +1,6 @@
 import { coMoments, CoMoments } from './comoments';
 import { kendallCounts, KendallCounts } from './kendall';
-import { averageRanks } from './ranks';
+import { averageRanks, rankCoMoments } from './ranks';
 import { fitLine, LineFit } from './regression';
 import { giveBack } from '../internal/scratch';
 import { argsortKeyed, KeyedOrder, releaseKeyedOrder } from '../internal/sort';
@@ -68,7 +68,7 @@ export class PreparedPairs {
   }
 
   get ranksX(): Float64Array {
-    return this.memo('ranksX', () => averageRanks(this.x, this.sortedX.order));
+    return this.memo('ranksX', () => averageRanks(this.x, this.sortedX));
   }
 
   /** y's sorted order, shared by Spearman's ranks and Kendall's counts. */
@@ -77,11 +77,11 @@ export class PreparedPairs {
   }
 
   get ranksY(): Float64Array {
-    return this.memo('ranksY', () => averageRanks(this.y, this.sortedY.order));
+    return this.memo('ranksY', () => averageRanks(this.y, this.sortedY));
   }
 
   get rankMoments(): CoMoments {
-    return this.memo('rankMoments', () => coMoments(this.ranksX, this.ranksY));
+    return this.memo('rankMoments', () => rankCoMoments(this.ranksX, this.ranksY));
   }
 
   get kendall(): KendallCounts {

