@@ -214,7 +214,10 @@ for (const kind of KINDS) for (const n of SIZES) {
   const fresh = () => {
     // An edit per call (one cell, a value never used before), so the content cache can never answer from an
     // earlier call: every time is a cold computation. The arrays are the host's shape: one array per row.
-    const y0 = y[0] + ++salt * (kind === 'ties' ? 0 : 1e-6);
+    // The edit keeps the column's kind: a whole number 1-7 for ties, a new amount to the cent for two decimals
+    // (adding 1e-6 there would make the column a six-decimal one), a new six-decimal value otherwise.
+    ++salt;
+    const y0 = kind === 'cents' ? Math.round((y[0] + salt * 0.01) * 100) / 100 : y[0] + (kind === 'ties' ? 0 : salt * 1e-6);
     if (FRESH_ARRAYS) {
       const Yf = toCol(y);
       Yf[0] = [kind === 'ties' ? ((salt % 7) + 1) : y0];

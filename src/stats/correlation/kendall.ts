@@ -1,4 +1,5 @@
-import { borrowI32, giveBack } from '../internal/scratch';
+import { Codes } from './codes';
+import { borrowF64, borrowI32, giveBack } from '../internal/scratch';
 import { argsortKeyed, KeyedOrder, releaseKeyedOrder } from '../internal/sort';
 import { StatsInputError } from '../types';
 
@@ -40,14 +41,20 @@ function addGroup(s: TieSums, t: number): void {
  * count the strict inversions of y in that order (discordant pairs) and y's ties. Knight merge-sorts y to count the
  * inversions; here a Fenwick tree over y's dense ranks counts them (see strictInversions). O(n log n) time, O(n)
  * memory.
- * `sortedY` is y's sorted order when a caller already has it (Spearman's ranks use the same sort).
+ * `sortedY` is y's sorted order when a caller already has it (Spearman's ranks use the same sort); `codesX` x's
+ * codes (codes.ts) when the caller has them, which spare the sort of x its reading of the values.
  */
-export function kendallCounts(x: ArrayLike<number>, y: ArrayLike<number>, sortedY: KeyedOrder = argsortKeyed(y)): KendallCounts {
+export function kendallCounts(
+  x: ArrayLike<number>,
+  y: ArrayLike<number>,
+  sortedY: KeyedOrder = argsortKeyed(y),
+  codesX: Codes | null = null,
+): KendallCounts {
   const n = x.length;
   if (y.length !== n) throw new StatsInputError('unequal-length', 'x and y must hold the same number of values');
   // Lexicographic (x, y) order: stable sort by x of the y-sorted order.
   const byY = sortedY.order;
-  const sortedX = argsortKeyed(x, byY);
+  const sortedX = argsortKeyed(x, byY, codesX);
   const order = sortedX.order;
   // Dense ranks of y (equal values share a rank): the inversion count works on 32-bit integers, not doubles. Ties
   // are read from the sorted keys sequentially when the radix path gave them.
@@ -108,6 +115,72 @@ export function kendallCounts(x: ArrayLike<number>, y: ArrayLike<number>, sorted
   giveBack(yRank, a);
   const n0 = (n * (n - 1)) / 2;
   // concordant - discordant = n0 - tiedX - tiedY + tiedXY - 2 * discordant (Knight 1966)
+  const s = n0 - tiedX - tiedY + tiedXY - 2 * discordant;
+  return { n, s, tiedX, tiedY, tiedXY, discordant, xTie, yTie };
+}
+
+/** Most cells of a joint frequency table that kendallFromTable fills (8 MB of counts). */
+export const MAX_TABLE_CELLS = 1 << 20;
+
+/**
+ * Kendall's counts from two coded columns (codes.ts) through their table of joint frequencies T[a][b], without
+ * sorting: O(n + A B) for A x codes and B y codes, used when A B is at most MAX_TABLE_CELLS and twice the rows
+ * (ratings, small counts). The counts are those of kendallCounts, summed in the same order: x's tie groups are the
+ * row totals in ascending x, y's the column totals in ascending y, joint ties the cells; a discordant pair is a
+ * row with a smaller x code and a larger y code, so the rows of cell (a, b) meet sum_{a' < a, b' > b} T[a'][b']
+ * of them (discordant pairs counted in a cross-classification as Goodman & Kruskal 1954, "Measures of association
+ * for cross classifications", JASA 49:732-764, count them). Counts are integers below 2^53, so every figure is
+ * exact.
+ * Returns null when the table would be too large.
+ */
+export function kendallFromTable(cx: Codes, cy: Codes): KendallCounts | null {
+  const n = cx.codes.length;
+  if (cy.codes.length !== n) throw new StatsInputError('unequal-length', 'x and y must hold the same number of values');
+  const A = cx.span + 1;
+  const B = cy.span + 1;
+  if (A * B > Math.min(MAX_TABLE_CELLS, 2 * n)) return null;
+  const table = borrowF64(A * B);
+  table.fill(0);
+  const xc = cx.codes;
+  const yc = cy.codes;
+  for (let i = 0; i < n; i++) table[xc[i] * B + yc[i]]++;
+  let tiedX = 0;
+  let tiedXY = 0;
+  const xTie = emptySums();
+  const columns = borrowF64(B); // rows so far (smaller x codes) per y code
+  columns.fill(0);
+  let discordant = 0;
+  for (let a = 0; a < A; a++) {
+    const row = a * B;
+    let t = 0;
+    let larger = 0; // rows so far with a larger y code than b
+    for (let b = B - 1; b >= 0; b--) {
+      const u = table[row + b];
+      if (u !== 0) discordant += u * larger;
+      larger += columns[b];
+    }
+    for (let b = 0; b < B; b++) {
+      const u = table[row + b];
+      if (u > 1) tiedXY += (u * (u - 1)) / 2;
+      t += u;
+      columns[b] += u;
+    }
+    if (t > 1) {
+      tiedX += (t * (t - 1)) / 2;
+      addGroup(xTie, t);
+    }
+  }
+  let tiedY = 0;
+  const yTie = emptySums();
+  for (let b = 0; b < B; b++) {
+    const t = columns[b];
+    if (t > 1) {
+      tiedY += (t * (t - 1)) / 2;
+      addGroup(yTie, t);
+    }
+  }
+  giveBack(table, columns);
+  const n0 = (n * (n - 1)) / 2;
   const s = n0 - tiedX - tiedY + tiedXY - 2 * discordant;
   return { n, s, tiedX, tiedY, tiedXY, discordant, xTie, yTie };
 }

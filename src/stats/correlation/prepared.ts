@@ -1,5 +1,6 @@
 import { coMoments, CoMoments } from './comoments';
-import { kendallCounts, KendallCounts } from './kendall';
+import { Codes, countingRanks, MAX_CODE_SPAN, smallSpanCodes } from './codes';
+import { kendallCounts, KendallCounts, kendallFromTable } from './kendall';
 import { averageRanks, rankCoMoments } from './ranks';
 import { fitLine, LineFit } from './regression';
 import { giveBack } from '../internal/scratch';
@@ -62,22 +63,48 @@ export class PreparedPairs {
     return this.memo('moments', () => coMoments(this.x, this.y));
   }
 
-  /** x's sorted order, shared by Spearman's ranks and the robust coefficients' sorted columns. */
-  get sortedX(): KeyedOrder {
-    return this.memo('sortedX', () => argsortKeyed(this.x));
+  /** x as integer codes when it is a decimal column of at most MAX_CODE_SPAN + 1 codes (codes.ts), else null. */
+  get codesX(): Codes | null {
+    return this.memo('codesX', () => this.adoptCodes(smallSpanCodes(this.x, MAX_CODE_SPAN)));
   }
 
+  get codesY(): Codes | null {
+    return this.memo('codesY', () => this.adoptCodes(smallSpanCodes(this.y, MAX_CODE_SPAN)));
+  }
+
+  /** x's sorted order, shared by Spearman's ranks and the robust coefficients' sorted columns. */
+  get sortedX(): KeyedOrder {
+    return this.memo('sortedX', () => argsortKeyed(this.x, undefined, this.codesX));
+  }
+
+  /** Mid-ranks of x: counted from its codes when they are few enough for that to beat a sort, else sorted. */
   get ranksX(): Float64Array {
-    return this.memo('ranksX', () => averageRanks(this.x, this.sortedX));
+    return this.memo('ranksX', () => this.ranksOf(this.x, () => this.codesX, () => this.sortedX));
   }
 
   /** y's sorted order, shared by Spearman's ranks and Kendall's counts. */
   get sortedY(): KeyedOrder {
-    return this.memo('sortedY', () => argsortKeyed(this.y));
+    return this.memo('sortedY', () => argsortKeyed(this.y, undefined, this.codesY));
   }
 
   get ranksY(): Float64Array {
-    return this.memo('ranksY', () => averageRanks(this.y, this.sortedY));
+    return this.memo('ranksY', () => this.ranksOf(this.y, () => this.codesY, () => this.sortedY));
+  }
+
+  private ranksOf(v: Float64Array, codes: () => Codes | null, sorted: () => KeyedOrder): Float64Array {
+    // A sort already made (or seeded) costs nothing more; a frequency table of up to 2n + 1024 codes costs less
+    // than making one.
+    const key = v === this.x ? 'sortedX' : 'sortedY';
+    if (!this.memos.has(key)) {
+      const c = codes();
+      if (c && c.span <= 2 * v.length + 1024) return countingRanks(c);
+    }
+    return averageRanks(v, sorted());
+  }
+
+  private adoptCodes(c: Codes | null): Codes | null {
+    if (c) this.adopted.push(c.codes);
+    return c;
   }
 
   get rankMoments(): CoMoments {
@@ -85,7 +112,11 @@ export class PreparedPairs {
   }
 
   get kendall(): KendallCounts {
-    return this.memo('kendall', () => kendallCounts(this.x, this.y, this.sortedY));
+    return this.memo('kendall', () => {
+      const cx = this.codesX;
+      const cy = cx ? this.codesY : null;
+      return (cx && cy && kendallFromTable(cx, cy)) || kendallCounts(this.x, this.y, this.sortedY, cx);
+    });
   }
 
   get fit(): LineFit {

@@ -11,6 +11,7 @@
  *   the same for every key is skipped.
  * Keys must not be NaN. -0 and +0 are equal keys (stability keeps their order).
  */
+import { Codes } from '../correlation/codes';
 import { decimalPlaces } from '../correlation/comoments';
 import { borrowU32, giveBack } from './scratch';
 
@@ -44,6 +45,15 @@ function decimalKeys(keys: ArrayLike<number>, order: Uint32Array<ArrayBufferLike
   const out = borrowU32(n);
   for (let i = 0; i < n; i++) out[i] = Math.round(keys[order[i]] * s) - min;
   return { word: out, span: max - min };
+}
+
+/** The one-word keys from codes, in the incoming order. */
+function codeKeys(c: Codes, order: Uint32Array<ArrayBufferLike>): { word: Uint32Array; span: number } {
+  const n = order.length;
+  const out = borrowU32(n);
+  const codes = c.codes;
+  for (let i = 0; i < n; i++) out[i] = codes[order[i]];
+  return { word: out, span: c.span };
 }
 
 /** Digit passes a word needs when its keys span [0, span]: none for one value, else enough for span's bits. */
@@ -116,8 +126,12 @@ export interface KeyedOrder {
   sortedWords: Uint32Array<ArrayBufferLike>[] | null;
 }
 
-/** As argsort, also returning the sorted keys (see KeyedOrder). */
-export function argsortKeyed(keys: ArrayLike<number>, initial?: Uint32Array<ArrayBufferLike>): KeyedOrder {
+/**
+ * As argsort, also returning the sorted keys (see KeyedOrder). `codes`, when the caller has them for these keys
+ * (codes.ts), are the one-word keys the decimal path would compute (the same round(x * 10^d) - min), so they are
+ * used as they are.
+ */
+export function argsortKeyed(keys: ArrayLike<number>, initial?: Uint32Array<ArrayBufferLike>, codes?: Codes | null): KeyedOrder {
   const n = keys.length;
   let order: Uint32Array<ArrayBufferLike>;
   if (initial) {
@@ -128,7 +142,7 @@ export function argsortKeyed(keys: ArrayLike<number>, initial?: Uint32Array<Arra
     for (let i = 0; i < n; i++) order[i] = i;
   }
   if (n < SMALL) return { order: comparisonArgsort(keys, order), sortedWords: null };
-  const single = decimalKeys(keys, order);
+  const single = codes ? codeKeys(codes, order) : decimalKeys(keys, order);
   // Words, least significant first, each sorted in up to ceil(32 / BITS) digit passes: a decimal word only in as
   // many as its span needs.
   const words: Uint32Array[] = single ? [single.word] : (() => {
