@@ -114,8 +114,9 @@ export class PreparedPairs {
   get kendall(): KendallCounts {
     return this.memo('kendall', () => {
       const cx = this.codesX;
-      const cy = cx ? this.codesY : null;
-      return (cx && cy && kendallFromTable(cx, cy)) || kendallCounts(this.x, this.y, this.sortedY, cx);
+      const cy = this.codesY;
+      return (cx && cy && kendallFromTable(cx, cy)) ||
+        kendallCounts(this.x, this.y, { sortedX: () => this.sortedX, sortedY: () => this.sortedY, codesY: cy });
     });
   }
 

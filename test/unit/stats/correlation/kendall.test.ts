@@ -1,47 +1,50 @@
 /**
  * The counting under Kendall's tau-b and Spearman's ranks (src/stats/correlation/kendall.ts, codes.ts). The
  * coefficients themselves are held to R and scipy in correlate.test.ts and, at 1,000,000 rows, in
- * hostile/large-ranges.test.ts; here the Fenwick-tree count is held to its definition (pairs i < j with
- * a[i] > a[j], counted one pair at a time), and the paths that skip the sort to the paths that sort.
+ * hostile/large-ranges.test.ts; here the counts of the Fenwick-tree path are held to their definitions, counted
+ * one pair at a time, and the paths that skip the sort to the paths that sort.
  */
 import { Codes, countingRanks, MAX_CODE_SPAN, smallSpanCodes } from '../../../../src/stats/correlation/codes';
-import { kendallCounts, kendallFromTable, strictInversions } from '../../../../src/stats/correlation/kendall';
+import { kendallCounts, kendallFromTable } from '../../../../src/stats/correlation/kendall';
 import { averageRanks } from '../../../../src/stats/correlation/ranks';
 
-function byDefinition(a: Int32Array): number {
-  let count = 0;
-  for (let i = 0; i < a.length; i++) for (let j = i + 1; j < a.length; j++) if (a[i] > a[j]) count++;
-  return count;
+/** Kendall's counts one pair at a time, from their definitions. */
+function byDefinition(x: Float64Array, y: Float64Array) {
+  let discordant = 0;
+  let tiedX = 0;
+  let tiedY = 0;
+  let tiedXY = 0;
+  for (let i = 0; i < x.length; i++) {
+    for (let j = i + 1; j < x.length; j++) {
+      const dx = x[i] - x[j];
+      const dy = y[i] - y[j];
+      if (dx * dy < 0) discordant++;
+      if (dx === 0) tiedX++;
+      if (dy === 0) tiedY++;
+      if (dx === 0 && dy === 0) tiedXY++;
+    }
+  }
+  return { discordant, tiedX, tiedY, tiedXY };
 }
 
-describe('strictInversions', () => {
+describe('kendallCounts', () => {
   test.each([
-    [1, 1],
-    [2, 2],
-    [50, 7],
-    [400, 3],
-    [1500, 1500],
-    [2000, 200],
-  ])('%i values over %i ranks, ties included, match the pair-by-pair count', (n, ranks) => {
+    [5, 1, 1],
+    [50, 7, 7],
+    [400, 3, 50],
+    [1500, 1500, 1500],
+    [2000, 200, 9],
+  ])('%i rows with %i and %i distinct values: the pair counts match the pair-by-pair ones', (n, kx, ky) => {
     let s = 20261203 + n;
-    const a = new Int32Array(n);
+    const u = () => ((s = (Math.imul(s, 1664525) + 1013904223) >>> 0) + 0.5) / 4294967296;
+    const x = new Float64Array(n);
+    const y = new Float64Array(n);
     for (let i = 0; i < n; i++) {
-      s = (Math.imul(s, 1664525) + 1013904223) >>> 0;
-      a[i] = Math.floor((s / 4294967296) * ranks);
+      x[i] = Math.floor(u() * kx) + 0.25;
+      y[i] = kx === 1500 ? Math.sin(i) : Math.floor(((x[i] + u() * kx) / 2 / kx) * ky);
     }
-    expect(strictInversions(a, ranks)).toBe(byDefinition(a));
-  });
-
-  test('a descending run of n distinct ranks has n(n-1)/2 inversions, an ascending one none', () => {
-    const n = 70000; // above the scratch pool's minimum, so the tree is a pooled (stale) buffer
-    const down = new Int32Array(n);
-    const up = new Int32Array(n);
-    for (let i = 0; i < n; i++) {
-      down[i] = n - 1 - i;
-      up[i] = i;
-    }
-    expect(strictInversions(down, n)).toBe((n * (n - 1)) / 2);
-    expect(strictInversions(up, n)).toBe(0);
+    const c = kendallCounts(x, y);
+    expect({ discordant: c.discordant, tiedX: c.tiedX, tiedY: c.tiedY, tiedXY: c.tiedXY }).toEqual(byDefinition(x, y));
   });
 });
 
