@@ -1,6 +1,6 @@
 import { chiSquareSf, normalSf } from '../distributions';
 import { StatsInputError } from '../types';
-import { shapeMoments } from './moments';
+import { shapeMoments, ShapeMoments } from './moments';
 
 /** A z test on one shape moment. */
 export interface ShapeZTest {
@@ -100,8 +100,8 @@ export function kurtosisTest(values: ArrayLike<number>): ShapeZTest {
  * @throws StatsInputError for fewer than 8 values or a constant column.
  * @example dagostinoPearson(column).pValue
  */
-export function dagostinoPearson(values: ArrayLike<number>): OmnibusResult {
-  const m = shapeMoments(values);
+export function dagostinoPearson(values: ArrayLike<number>, moments?: ShapeMoments): OmnibusResult {
+  const m = moments ?? shapeMoments(values);
   const zs = skewnessZ(m.skewness, m.n);
   const zk = kurtosisZ(m.excessKurtosis, m.n);
   const k2 = zs * zs + zk * zk;

@@ -178,7 +178,7 @@ function normalityRow(key: 'normal-x' | 'normal-y' | 'normal-residuals', values:
   }
   return safely(key, test, () => {
     const shape = shapeMoments(values);
-    const res = n > SHAPIRO_WILK_MAX_N ? dagostinoPearson(values) : shapiroWilk(values);
+    const res = n > SHAPIRO_WILK_MAX_N ? dagostinoPearson(values, shape) : shapiroWilk(values);
     const detected = res.pValue < ctx.alpha;
     const severity = (s: { skewness: number; excessKurtosis: number }): number =>
       Math.max(Math.abs(s.skewness) / SHAPE_LIMITS.skewness, s.excessKurtosis / SHAPE_LIMITS.excessKurtosis);
@@ -277,12 +277,21 @@ export function runChecks(xIn: ArrayLike<number>, yIn: ArrayLike<number>, opts: 
   const infl = lineInfluence(xs, fit.residuals, noise);
   const points = pointDiagnostics(fit, infl, onLine, alpha);
   const level = 1 - alpha;
-  const loo = n >= MIN_FOR_RESIDUALS && !onLine ? leaveOneOut(xs, ys) : null;
+  const loo = n >= MIN_FOR_RESIDUALS && !onLine ? leaveOneOut(xs, ys, fit.moments) : null;
   const ctx: Context = {
     n, alpha, level, where, flagged: points.flagged, loo,
     direction: loo ? directionAt(loo.r, n, level) : 'none',
   };
   const dependence = n >= 5 ? effectiveRows(xs, ys) : null;
+  // x's thirds (even spread) and quartiles (outliers) from one copy of x, on first use.
+  let cuts: ReturnType<XCuts> | undefined;
+  const xCuts: XCuts = () => {
+    if (!cuts) {
+      const [q1, t1, t2, q3] = typeSevenQuantiles(xs, [0.25, 1 / 3, 2 / 3, 0.75]);
+      cuts = { quartiles: [q1, q3], lowThird: t1, highThird: t2 };
+    }
+    return cuts;
+  };
 
   const checks: CheckRow[] = [
     normalityRow('normal-x', xs, ctx, 3),
@@ -291,8 +300,8 @@ export function runChecks(xIn: ArrayLike<number>, yIn: ArrayLike<number>, opts: 
       ? notTestable('normal-residuals', n > SHAPIRO_WILK_MAX_N ? K2_TEST : SW_TEST, ON_LINE)
       : normalityRow('normal-residuals', fit.residuals, ctx, MIN_FOR_RESIDUALS),
     straightLineRow(xs, fit, onLine, ctx),
-    evenSpreadRow(xs, fit, infl, onLine, ctx),
-    outlierRow(xs, ys, infl, onLine, ctx),
+    evenSpreadRow(xs, fit, infl, onLine, ctx, xCuts),
+    outlierRow(xs, ys, infl, onLine, ctx, xCuts),
     influenceRow(infl, onLine, ctx),
     rowOrderRow(xs, fit, onLine, ctx, dependence),
   ];
@@ -303,7 +312,8 @@ export function runChecks(xIn: ArrayLike<number>, yIn: ArrayLike<number>, opts: 
       points.residuals[i] *= scaleY;
     }
   }
-  giveBack(xs !== x ? xs : null, ys !== y ? ys : null); // nothing kept refers to the scaled copies
+  // Nothing kept refers to the scaled copies, nor to r without each row (the report keeps three numbers of it).
+  giveBack(xs !== x ? xs : null, ys !== y ? ys : null, loo ? loo.without : null);
   const flags: string[] = [];
   const minor: string[] = [];
   let notTestableCount = 0;
@@ -328,6 +338,9 @@ export function runChecks(xIn: ArrayLike<number>, yIn: ArrayLike<number>, opts: 
     points,
   };
 }
+
+/** x's quartiles and thirds (type 7), computed once when a check first asks. */
+type XCuts = () => { quartiles: [number, number]; lowThird: number; highThird: number };
 
 /** v / scale in a work array from the scratch pool (the caller gives it back). */
 function scaledCopy(v: Float64Array, scale: number): Float64Array {
@@ -381,9 +394,9 @@ function straightLineRow(x: Float64Array, fit: LineFit, onLine: boolean, ctx: Co
  * s^2 / sum c^2. The t test of r is the t test of the slope, so the ratio says how far Pearson's p and interval
  * are off.
  */
-function spreadEffect(x: Float64Array, fit: LineFit, infl: LineInfluence): { ratio: number; wider: 'top' | 'bottom'; seRatio: number } {
+function spreadEffect(x: Float64Array, fit: LineFit, infl: LineInfluence, cuts: XCuts): { ratio: number; wider: 'top' | 'bottom'; seRatio: number } {
   const n = fit.n;
-  const [lowCut, highCut] = typeSevenQuantiles(x, [1 / 3, 2 / 3]);
+  const { lowThird: lowCut, highThird: highCut } = cuts();
   let lowSum = 0, lowCount = 0, highSum = 0, highCount = 0;
   let mean = 0;
   for (let i = 0; i < n; i++) mean += x[i];
@@ -416,7 +429,7 @@ function spreadEffect(x: Float64Array, fit: LineFit, infl: LineInfluence): { rat
   return { ratio, wider, seRatio };
 }
 
-function evenSpreadRow(x: Float64Array, fit: LineFit, infl: LineInfluence, onLine: boolean, ctx: Context): CheckRow {
+function evenSpreadRow(x: Float64Array, fit: LineFit, infl: LineInfluence, onLine: boolean, ctx: Context, cuts: XCuts): CheckRow {
   const key = 'even-spread';
   const test = 'Breusch–Pagan (Koenker), n·R²';
   if (fit.n < MIN_FOR_RESIDUALS) return notTestable(key, test, tooFew(MIN_FOR_RESIDUALS));
@@ -424,7 +437,7 @@ function evenSpreadRow(x: Float64Array, fit: LineFit, infl: LineInfluence, onLin
   return safely(key, test, () => {
     const t = breuschPagan(x, fit.residuals);
     const detected = t.pValue < ctx.alpha;
-    const s = spreadEffect(x, fit, infl);
+    const s = spreadEffect(x, fit, infl, cuts);
     const serious = s.seRatio >= SE_INFLATION_LIMIT;
     const verdict = judge(key, detected, serious, fit.n);
     const ratioText = Number.isFinite(s.ratio) ? `the scatter is ${num(s.ratio)} times as wide in the ${s.wider} third of x as in the ${s.wider === 'top' ? 'bottom' : 'top'}` : 'the scatter differs between the ends of x';
@@ -446,13 +459,13 @@ function evenSpreadRow(x: Float64Array, fit: LineFit, infl: LineInfluence, onLin
 
 /** True when v lies beyond 3 interquartile ranges outside the quartiles of its column (Tukey 1977, Exploratory
  * Data Analysis, Addison-Wesley: "far out"), the mark of a value keyed in wrong rather than an unusual one. */
-function farOut(values: Float64Array, v: number): boolean {
-  const [q1, q3] = typeSevenQuantiles(values, [0.25, 0.75]);
+function farOut(quartiles: [number, number], v: number): boolean {
+  const [q1, q3] = quartiles;
   const iqr = q3 - q1;
   return iqr > 0 && (v < q1 - 3 * iqr || v > q3 + 3 * iqr);
 }
 
-function outlierRow(x: Float64Array, y: Float64Array, infl: LineInfluence, onLine: boolean, ctx: Context): CheckRow {
+function outlierRow(x: Float64Array, y: Float64Array, infl: LineInfluence, onLine: boolean, ctx: Context, cuts: XCuts): CheckRow {
   const key = 'outliers';
   const test = 'Largest studentized residual, Bonferroni';
   const n = infl.n;
@@ -474,7 +487,7 @@ function outlierRow(x: Float64Array, y: Float64Array, infl: LineInfluence, onLin
       value: Math.abs(change),
       text: loo ? `leaving ${where(i)} out moves r from ${num(loo.r)} to ${num(rWithout)}` : '',
     };
-    const typo = farOut(x, x[i]) || farOut(y, y[i]);
+    const typo = farOut(cuts().quartiles, x[i]) || farOut(typeSevenQuantiles(y, [0.25, 0.75]) as [number, number], y[i]);
     const detail = { df: n - 3, rWithout, changesConclusion: changes ? 1 : 0, farOut: typo ? 1 : 0 };
     if (!Number.isFinite(t)) {
       return {

@@ -1,4 +1,5 @@
-import { coMoments } from './comoments';
+import { coMoments, CoMoments } from './comoments';
+import { borrowF64 } from '../internal/scratch';
 import { clipUnit, pearsonFromMoments } from './pearson';
 
 /** Pearson's r with each row left out in turn. */
@@ -21,15 +22,17 @@ export interface LeaveOneOut {
  * sum (it sits far from the others); the few rows carrying over a quarter of Sxx or Syy are recomputed from the
  * other n - 1 rows directly (two-pass co-moments), so every r(i) keeps its digits.
  * @param x, y equal-length finite columns with at least 4 rows and variation in both
+ * @param moments coMoments(x, y) when the caller has them (a line fit does)
+ * `without` is a work array from the scratch pool: a caller done with it may give it back.
  */
-export function leaveOneOut(x: ArrayLike<number>, y: ArrayLike<number>): LeaveOneOut {
+export function leaveOneOut(x: ArrayLike<number>, y: ArrayLike<number>, moments?: CoMoments): LeaveOneOut {
   const n = x.length;
-  const m = coMoments(x, y);
+  const m = moments ?? coMoments(x, y);
   const r = pearsonFromMoments(m);
   const k = n / (n - 1);
   const ix = 1 / m.scaleX;
   const iy = 1 / m.scaleY;
-  const without = new Float64Array(n);
+  const without = borrowF64(n); // every element is written below
   const careful: number[] = [];
   for (let i = 0; i < n; i++) {
     // Deviations from the accurate means before scaling: x and its mean are close, so the difference is exact

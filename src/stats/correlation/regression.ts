@@ -1,5 +1,5 @@
 import { borrowF64 } from '../internal/scratch';
-import { coMoments } from './comoments';
+import { coMoments, CoMoments } from './comoments';
 import { assertVaries } from './pearson';
 
 /** Least-squares straight line y = intercept + slope * x, with what the diagnostics need. */
@@ -15,6 +15,8 @@ export interface LineFit {
   residuals: Float64Array;
   /** Residual sum of squares. */
   rss: number;
+  /** The co-moments the line was fitted from (for callers that need them too, such as leaveOneOut). */
+  moments: CoMoments;
 }
 
 /**
@@ -39,5 +41,5 @@ export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>): LineFit {
     residuals[i] = e;
     rss += e * e;
   }
-  return { n, slope, intercept, meanX: m.meanX, meanY: m.meanY, sxx: m.sxx * m.scaleX * m.scaleX, fitted, residuals, rss };
+  return { n, slope, intercept, meanX: m.meanX, meanY: m.meanY, sxx: m.sxx * m.scaleX * m.scaleX, fitted, residuals, rss, moments: m };
 }
