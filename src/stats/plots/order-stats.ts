@@ -23,13 +23,23 @@ export function typeSevenQuantiles(values: ArrayLike<number>, probabilities: num
   // allocates 8n bytes on every redraw.
   const work = borrowF64(n);
   for (let i = 0; i < n; i++) work[i] = values[i];
-  const out = probabilities.map((p) => {
-    const h = (n - 1) * p;
+  // In ascending order of place, each selection searches only from the last place selected on: selection leaves
+  // everything before that place no larger and everything after it no smaller, so the later order statistics
+  // lie there (the same values, in less of the array).
+  const out = new Array<number>(probabilities.length);
+  const byPlace = probabilities.map((_, i) => i).sort((i, j) => probabilities[i] - probabilities[j]);
+  let left = 0;
+  for (const q of byPlace) {
+    const h = (n - 1) * probabilities[q];
     const lo = Math.floor(h);
-    if (lo + 1 >= n || h === lo) return selectKth(work, lo);
-    const [a, b] = selectKthAndNext(work, lo);
-    return a + (h - lo) * (b - a);
-  });
+    if (lo + 1 >= n || h === lo) {
+      out[q] = selectKth(work, lo, left);
+    } else {
+      const [a, b] = selectKthAndNext(work, lo, left);
+      out[q] = a + (h - lo) * (b - a);
+    }
+    if (lo >= left && lo < n) left = lo;
+  }
   giveBack(work);
   return out;
 }
