@@ -1,4 +1,4 @@
-import { decimalPlaces, POW10 } from './comoments';
+import { MAX_PLACES, POW10 } from './comoments';
 import { borrowF64, borrowI32, giveBack } from '../internal/scratch';
 
 /**
@@ -26,16 +26,38 @@ export const MAX_CODE_SPAN = (1 << 20) - 1;
 export function smallSpanCodes(v: ArrayLike<number>, maxSpan: number): Codes | null {
   const n = v.length;
   if (n === 0) return null;
-  const d = decimalPlaces(v);
-  if (d < 0) return null;
-  const s = POW10[d];
-  const k0 = Math.round(v[0] * s);
+  const limit = 4503599627370496; // 2^52, as decimalPlaces
+  // One pass finds the decimal places and the codes together: each value is tested at the places found so far,
+  // as decimalPlaces tests it (so the places are the same), and when a value needs more, the codes before it
+  // are made again at the new places (at most nine times, and on typed data only within the first rows).
+  let d = 0;
+  let s = 1;
+  let k0 = Math.round(v[0]);
   let min = k0;
   let max = k0;
   const codes = borrowI32(n);
-  // First pass: codes relative to the first value, stopping as soon as the span passes maxSpan (so they fit).
   for (let i = 0; i < n; i++) {
-    const k = Math.round(v[i] * s);
+    const x = v[i];
+    let k = Math.round(x * s);
+    if (k / s !== x || Math.abs(x * s) >= limit) {
+      do {
+        d++;
+        if (d > MAX_PLACES) return giveUp(codes);
+        s = POW10[d];
+        k = Math.round(x * s);
+      } while (k / s !== x || Math.abs(x * s) >= limit);
+      k0 = Math.round(v[0] * s);
+      min = k0;
+      max = k0;
+      for (let j = 0; j < i; j++) {
+        const kj = Math.round(v[j] * s);
+        if (kj < min) min = kj;
+        else if (kj > max) max = kj;
+        codes[j] = kj - k0;
+      }
+      if (max - min > maxSpan) return giveUp(codes);
+    }
+    // Codes relative to the first value, stopping as soon as the span passes maxSpan (so they fit).
     if (k < min) {
       min = k;
       if (max - min > maxSpan) return giveUp(codes);

@@ -43,7 +43,7 @@ export function powerOfTwoScale(v: ArrayLike<number>): number {
 }
 
 /** Most decimal places tried when reading a column as exact decimals. */
-const MAX_PLACES = 9;
+export const MAX_PLACES = 9;
 /** 10^d for the decimal places tried (shared with residuals.ts, which reads decimals the same way). */
 export const POW10 = [1, 10, 100, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9];
 /** Below this many rows a column is tried as exact decimals (the sums of its integers stay exact well past it). */

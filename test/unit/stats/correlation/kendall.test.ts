@@ -111,5 +111,7 @@ describe('counts without a sort, for few-valued columns', () => {
     expect(smallSpanCodes(Float64Array.of(0, 1e7), MAX_CODE_SPAN)).toBeNull();
     expect(smallSpanCodes(Float64Array.of(0.5, 2.25, -1), 325)).toEqual({ codes: Int32Array.of(150, 325, 0), span: 325 });
     expect(smallSpanCodes(Float64Array.of(0.5, 2.25, -1), 324)).toBeNull();
+    // places that grow along the column (0, then 1, 2 and 3): the codes before are made again at three places
+    expect(smallSpanCodes(Float64Array.of(1, 2, 3.5, 4.25, 0.125), 5000)).toEqual({ codes: Int32Array.of(875, 1875, 3375, 4125, 0), span: 4125 });
   });
 });
