@@ -58,3 +58,18 @@ test.each([
   const refInitial = Array.from(initial).sort((a, b) => v[a] - v[b]);
   expect(Array.from(argsort(v, initial))).toEqual(refInitial);
 });
+
+/** Full-precision columns where the digit passes see little variation: neighbouring doubles (one high word, so
+ *  the high word's passes are all skipped), neighbours across a power of two, and small values across zero. */
+test.each([
+  ['neighbouring doubles above 1', (u: () => number) => 1 + Math.floor(u() * 5e5) * 2 ** -52],
+  ['doubles on both sides of 2', (u: () => number) => 2 + (Math.floor(u() * 2e5) - 1e5) * 2 ** -50],
+  ['values on both sides of zero', (u: () => number) => (u() - 0.5) * 1e-3],
+] as const)('stable ascending order on %s', (_label, draw) => {
+  const n = 40000;
+  const u = lcg(_label.length + 3);
+  const v = Float64Array.from({ length: n }, () => draw(u));
+  const ref = Array.from({ length: n }, (_, i) => i).sort((a, b) => v[a] - v[b]);
+  expect(Array.from(argsort(v))).toEqual(ref);
+  expect(Array.from(averageRanks(v))).toEqual(Array.from(averageRanks(Array.from(v), Uint32Array.from(ref))));
+});
