@@ -16,6 +16,28 @@ export interface CurvatureTest {
   bend: 'up' | 'down';
 }
 
+/** Subtracts `mean` from v in place; returns the dot product of c with the result (in row order). */
+function centreThenDot(v: Float64Array, mean: number, c: Float64Array): number {
+  let s = 0;
+  for (let i = 0; i < v.length; i++) {
+    const a = v[i] - mean;
+    v[i] = a;
+    s += c[i] * a;
+  }
+  return s;
+}
+
+/** Subtracts k c from v in place; returns the dot product of the result with w (w = v: its sum of squares). */
+function subtractThenDot(v: Float64Array, k: number, c: Float64Array, w: Float64Array): number {
+  let s = 0;
+  for (let i = 0; i < v.length; i++) {
+    const a = v[i] - k * c[i];
+    v[i] = a;
+    s += a * w[i];
+  }
+  return s;
+}
+
 /**
  * Is the straight line the right shape? The partial F test for adding x^2 to the least-squares line
  * y = a + b x (one numerator df, n - 3 denominator df). With one predictor this is Ramsey's RESET with the squared
@@ -97,19 +119,8 @@ export function curvatureTest(x: ArrayLike<number>, residuals: ArrayLike<number>
     mean2 += v;
   }
   mean2 /= n;
-  let k2 = 0;
-  for (let i = 0; i < n; i++) {
-    const v = q[i] - mean2;
-    q[i] = v;
-    k2 += c[i] * v;
-  }
-  k2 /= cc;
-  let qq = 0;
-  for (let i = 0; i < n; i++) {
-    const v = q[i] - k2 * c[i];
-    q[i] = v;
-    qq += v * v;
-  }
+  const k2 = centreThenDot(q, mean2, c) / cc;
+  const qq = subtractThenDot(q, k2, c, q);
   // The part of x^2 that a line cannot reproduce is lost in rounding: as good as two distinct values.
   if (!(qq > 1e-14 * qq0)) {
     giveBack(c, q);
@@ -125,19 +136,8 @@ export function curvatureTest(x: ArrayLike<number>, residuals: ArrayLike<number>
   }
   eMean /= n;
   // Least-squares residuals are orthogonal to 1 and x; this removes what rounding in the line fit left behind.
-  let ke = 0;
-  for (let i = 0; i < n; i++) {
-    const v = e[i] - eMean;
-    e[i] = v;
-    ke += c[i] * v;
-  }
-  ke /= cc;
-  let eq = 0;
-  for (let i = 0; i < n; i++) {
-    const v = e[i] - ke * c[i];
-    e[i] = v;
-    eq += v * q[i];
-  }
+  const ke = centreThenDot(e, eMean, c) / cc;
+  const eq = subtractThenDot(e, ke, c, q);
   const beta = eq / qq;
   const reduction = beta * beta * qq;
   // Residuals of the quadratic fit, summed directly rather than as RSS_line - reduction, which would cancel when
