@@ -16,6 +16,17 @@ export interface CurvatureTest {
   bend: 'up' | 'down';
 }
 
+/** out[i] = v[i] / s (out may be v); returns the sum of out (in row order). */
+function divideInto(out: Float64Array, v: ArrayLike<number>, s: number): number {
+  let sum = 0;
+  for (let i = 0; i < out.length; i++) {
+    const a = v[i] / s;
+    out[i] = a;
+    sum += a;
+  }
+  return sum;
+}
+
 /** Subtracts `mean` from v in place; returns the dot product of c with the result (in row order). */
 function centreThenDot(v: Float64Array, mean: number, c: Float64Array): number {
   let s = 0;
@@ -83,13 +94,7 @@ export function curvatureTest(x: ArrayLike<number>, residuals: ArrayLike<number>
     if (a > cMax) cMax = a;
   }
   const sc = powerOfTwoScale([cMax]);
-  let cMean = 0;
-  for (let i = 0; i < n; i++) {
-    const v = c[i] / sc;
-    c[i] = v;
-    cMean += v;
-  }
-  cMean /= n;
+  const cMean = divideInto(c, c, sc) / n;
   const q = borrowF64(n);
   let cc = 0;
   let qMean = 0;
@@ -128,13 +133,7 @@ export function curvatureTest(x: ArrayLike<number>, residuals: ArrayLike<number>
   }
   const se = powerOfTwoScale([eMax]);
   const e = borrowF64(n);
-  let eMean = 0;
-  for (let i = 0; i < n; i++) {
-    const v = residuals[i] / se;
-    e[i] = v;
-    eMean += v;
-  }
-  eMean /= n;
+  const eMean = divideInto(e, residuals, se) / n;
   // Least-squares residuals are orthogonal to 1 and x; this removes what rounding in the line fit left behind.
   const ke = centreThenDot(e, eMean, c) / cc;
   const eq = subtractThenDot(e, ke, c, q);
