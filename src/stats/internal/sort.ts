@@ -63,7 +63,7 @@ function passesFor(span: number): number {
 
 /**
  * The digit histograms of one word's first `passes` digits, into counts[(first + p) * BUCKETS + digit]. Written
- * out per pass count so the loop has no inner loop over passes (a third less time on a million keys).
+ * out per pass count, so the loop over the keys has no inner loop over passes and skips the digits above the span.
  */
 function histogram(word: Uint32Array<ArrayBufferLike>, passes: number, counts: Uint32Array, first: number): void {
   const n = word.length;
