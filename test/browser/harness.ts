@@ -245,3 +245,23 @@ export async function openWorkbenchWithPanel(): Promise<{ server: RunningWorkben
   await panelIdle(browser.page);
   return { server, browser };
 }
+
+/**
+ * For a test file that shares one workbench and panel: opens them (openWorkbenchWithPanel) before the file's first
+ * test and closes them after its last. The returned accessor gives the open session inside tests.
+ */
+export function sharedWorkbenchWithPanel(): () => BrowserSession {
+  let server: RunningWorkbench | undefined;
+  let browser: BrowserSession | undefined;
+  beforeAll(async () => {
+    ({ server, browser } = await openWorkbenchWithPanel());
+  }, 300000);
+  afterAll(async () => {
+    await browser?.close();
+    await server?.stop();
+  });
+  return () => {
+    if (!browser) throw new Error('the workbench is not open (sharedWorkbenchWithPanel opens it in beforeAll)');
+    return browser;
+  };
+}

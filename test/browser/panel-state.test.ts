@@ -6,13 +6,12 @@
  * and a column without a header is named once. The expected figures are the grid's COEF formula cells (the cell
  * functions in the formula worker, a second route through the core), never the panel's own output.
  */
-import { BrowserSession, RunningWorkbench, afterPanelRedraw, cellValue, openWorkbenchWithPanel, panelIdle, screenshot, settle, typeInto } from './harness';
+import { afterPanelRedraw, cellValue, panelIdle, screenshot, settle, sharedWorkbenchWithPanel, typeInto } from './harness';
 
 jest.setTimeout(120000);
 
-let server: RunningWorkbench;
-let browser: BrowserSession;
-const page = () => browser.page;
+const session = sharedWorkbenchWithPanel();
+const page = () => session().page;
 const testid = (id: string) => page().locator(`[data-testid="${id}"]`);
 
 const afterRedraw = (action: () => Promise<unknown>) => afterPanelRedraw(page(), action);
@@ -23,15 +22,6 @@ async function afterAction(action: () => Promise<unknown>): Promise<void> {
   await settle(page());
   await panelIdle(page());
 }
-
-beforeAll(async () => {
-  ({ server, browser } = await openWorkbenchWithPanel());
-}, 300000);
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
 
 describe('a renamed header', () => {
   test('is followed by the pick, and later edits still move the panel with the sheet', async () => {
@@ -80,7 +70,7 @@ describe('picks that cannot be used', () => {
 });
 
 test('the page raised no errors', () => {
-  expect(browser.pageErrors).toEqual([]);
+  expect(session().pageErrors).toEqual([]);
 });
 
 describe('writing formulas', () => {

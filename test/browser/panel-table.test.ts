@@ -9,15 +9,14 @@
  */
 import * as fs from 'fs';
 import * as path from 'path';
-import { BrowserSession, RunningWorkbench, afterPanelRedraw, columnNumbers, completePairs, openWorkbenchWithPanel, pearsonReference, screenshot, typeInto } from './harness';
+import { afterPanelRedraw, columnNumbers, completePairs, pearsonReference, screenshot, sharedWorkbenchWithPanel, typeInto } from './harness';
 
 jest.setTimeout(120000);
 
 const POWER = JSON.parse(fs.readFileSync(path.resolve(__dirname, '../fixtures/compare/power-exact-mpmath.json'), 'utf8'));
 
-let server: RunningWorkbench;
-let browser: BrowserSession;
-const page = () => browser.page;
+const session = sharedWorkbenchWithPanel();
+const page = () => session().page;
 const testid = (id: string) => page().locator(`[data-testid="${id}"]`);
 
 /** The North table's columns by letter, as the demo sheet lays them out (header in row 1, data rows 2-49). */
@@ -38,15 +37,6 @@ const renderCount = () => page().evaluate(() => Number(document.querySelector('[
 
 /** The heatmap cell of row i and column j (0-based places among the drawn columns). */
 const heatCell = (i: number, j: number) => page().locator(`[data-testid="heatmap"] button[data-i="${i}"][data-j="${j}"]`);
-
-beforeAll(async () => {
-  ({ server, browser } = await openWorkbenchWithPanel());
-}, 300000);
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
 
 describe('the heatmap of the table', () => {
   test('draws every numeric column, leaves the label column out, and shows r and the Holm p on hover', async () => {
