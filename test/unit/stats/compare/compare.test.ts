@@ -9,6 +9,7 @@ import { ComparisonResult, describeComparison } from '../../../../src/stats/comp
 import { StatsInputError, Tail } from '../../../../src/stats/types';
 import { expectRel } from '../../../helpers/close';
 import { expectAbs, R, RTails } from './fixtures';
+import { pairsWithoutBlanks } from '../../../helpers/pairs';
 
 const both = { tail: 'both' as Tail, level: 0.95 };
 const TAILS: Tail[] = ['both', 'positive', 'negative'];
@@ -57,19 +58,7 @@ describe('Fisher (1925) z test for independent groups, Zou (2007) interval', () 
 
   test('from raw data: tenure and performance, north against south (R cor.test and psych::r.test)', () => {
     const ref = R.groups;
-    const pick = (region: 'north' | 'south') => {
-      const d = R.data[region];
-      const x: number[] = [];
-      const y: number[] = [];
-      d.tenure.forEach((t, i) => {
-        const p = d.performance[i];
-        if (t !== null && p !== null) {
-          x.push(t);
-          y.push(p);
-        }
-      });
-      return { x, y };
-    };
+    const pick = (region: 'north' | 'south') => pairsWithoutBlanks(R.data[region].tenure, R.data[region].performance);
     const n = pick('north');
     const s = pick('south');
     const res = compareIndependentSamples(n.x, n.y, s.x, s.y, both);

@@ -10,20 +10,12 @@
 import { lineResiduals } from '../../../../src/stats/correlation/residuals';
 import { StatsInputError } from '../../../../src/stats/types';
 import { expectRel } from '../../../helpers/close';
+import { pairsWithoutBlanks } from '../../../helpers/pairs';
 import { R_RESIDUALS, referenceOf, residualCase, ResidualCase, worstDifferences } from './residuals-fixture';
 
 /** The complete pairs of a case, as the cell layer hands them to the core. */
 function pairsOf(c: ResidualCase): { x: number[]; y: number[] } {
-  const x: number[] = [];
-  const y: number[] = [];
-  c.x.forEach((v, i) => {
-    const w = c.y[i];
-    if (v !== null && w !== null) {
-      x.push(v);
-      y.push(w);
-    }
-  });
-  return { x, y };
+  return pairsWithoutBlanks(c.x, c.y);
 }
 
 describe(`lineResiduals agrees with R lm(y ~ x) (${R_RESIDUALS.R})`, () => {
