@@ -1,6 +1,6 @@
 import { Codes } from './codes';
 import { borrowF64, borrowI32, giveBack } from '../internal/scratch';
-import { argsortKeyed, KeyedOrder, releaseKeyedOrder } from '../internal/sort';
+import { argsortKeyed, KeyedOrder, releaseKeyedOrder, sameAsPrevious } from '../internal/sort';
 import { StatsInputError } from '../types';
 
 /** Everything Kendall's tau-b and its tests need, counted in O(n log n). */
@@ -216,22 +216,6 @@ export function kendallFromTable(cx: Codes, cy: Codes): KendallCounts | null {
   const n0 = (n * (n - 1)) / 2;
   const s = n0 - tiedX - tiedY + tiedXY - 2 * discordant;
   return { n, s, tiedX, tiedY, tiedXY, discordant, xTie, yTie };
-}
-
-/** Whether the i-th value in sorted order equals the (i-1)-th: from the sorted keys when present, else values. */
-function sameAsPrevious(sorted: KeyedOrder, v: ArrayLike<number>): (i: number) => boolean {
-  const w = sorted.sortedWords;
-  if (w && w.length === 1) {
-    const a = w[0];
-    return (i) => a[i] === a[i - 1];
-  }
-  if (w && w.length === 2) {
-    const lo = w[0];
-    const hi = w[1];
-    return (i) => lo[i] === lo[i - 1] && hi[i] === hi[i - 1];
-  }
-  const o = sorted.order;
-  return (i) => v[o[i]] === v[o[i - 1]];
 }
 
 /** Kendall's tau-b = S / sqrt((n0 - n1)(n0 - n2)) (Kendall 1945, "The treatment of ties in ranking problems", Biometrika 33:239-251). */

@@ -1,6 +1,6 @@
 import { CoMoments } from './comoments';
 import { borrowF64 } from '../internal/scratch';
-import { argsort, KeyedOrder } from '../internal/sort';
+import { argsort, KeyedOrder, sameAsPrevious } from '../internal/sort';
 
 /**
  * Ranks 1..n with ties given the average of the ranks they span (the "mid-rank" convention used by Spearman's
@@ -12,43 +12,17 @@ export function averageRanks(v: ArrayLike<number>, order: Uint32Array<ArrayBuffe
   const ranks = borrowF64(n); // every element is written below
   // A radix sort's keys are in sorted order already: tie groups are found reading them in sequence, instead of
   // gathering the values through the permutation.
-  const words = ArrayBuffer.isView(order) ? null : order.sortedWords;
-  const perm = ArrayBuffer.isView(order) ? order : order.order;
-  if (words && words.length === 1) {
-    const w = words[0];
-    for (let i = 0; i < n; ) {
-      let j = i + 1;
-      while (j < n && w[j] === w[i]) j++;
-      assign(ranks, perm, i, j);
-      i = j;
-    }
-    return ranks;
-  }
-  if (words && words.length === 2) {
-    const lo = words[0];
-    const hi = words[1];
-    for (let i = 0; i < n; ) {
-      let j = i + 1;
-      while (j < n && lo[j] === lo[i] && hi[j] === hi[i]) j++;
-      assign(ranks, perm, i, j);
-      i = j;
-    }
-    return ranks;
-  }
+  const sorted: KeyedOrder = ArrayBuffer.isView(order) ? { order, sortedWords: null } : order;
+  const perm = sorted.order;
+  const same = sameAsPrevious(sorted, v);
   for (let i = 0; i < n; ) {
     let j = i + 1;
-    const value = v[perm[i]];
-    while (j < n && v[perm[j]] === value) j++;
-    assign(ranks, perm, i, j);
+    while (j < n && same(j)) j++;
+    const rank = (i + 1 + j) / 2; // average of ranks i+1 .. j
+    for (let k = i; k < j; k++) ranks[perm[k]] = rank;
     i = j;
   }
   return ranks;
-}
-
-/** Gives sorted places i .. j - 1 (one tie group) the average of the ranks i + 1 .. j. */
-function assign(ranks: Float64Array, perm: Uint32Array<ArrayBufferLike>, i: number, j: number): void {
-  const rank = (i + 1 + j) / 2;
-  for (let k = i; k < j; k++) ranks[perm[k]] = rank;
 }
 
 /**

@@ -207,6 +207,22 @@ export function argsortKeyed(keys: ArrayLike<number>, initial?: Uint32Array<Arra
   return { order: idxSrc, sortedWords: src };
 }
 
+/** Whether the i-th value in sorted order equals the (i-1)-th: from the sorted keys when present, else values. */
+export function sameAsPrevious(sorted: KeyedOrder, v: ArrayLike<number>): (i: number) => boolean {
+  const w = sorted.sortedWords;
+  if (w && w.length === 1) {
+    const a = w[0];
+    return (i) => a[i] === a[i - 1];
+  }
+  if (w && w.length === 2) {
+    const lo = w[0];
+    const hi = w[1];
+    return (i) => lo[i] === lo[i - 1] && hi[i] === hi[i - 1];
+  }
+  const o = sorted.order;
+  return (i) => v[o[i]] === v[o[i - 1]];
+}
+
 /** Returns a sort's arrays to the scratch pool once the caller is done with them (nothing may still use them). */
 export function releaseKeyedOrder(k: KeyedOrder): void {
   giveBack(k.order, ...(k.sortedWords ?? []));
