@@ -79,7 +79,7 @@ export class PreparedPairs {
 
   /** Mid-ranks of x: counted from its codes when they are few enough for that to beat a sort, else sorted. */
   get ranksX(): Float64Array {
-    return this.memo('ranksX', () => this.ranksOf(this.x, () => this.codesX, () => this.sortedX));
+    return this.memo('ranksX', () => this.ranksOf(this.x, 'sortedX', () => this.codesX, () => this.sortedX));
   }
 
   /** y's sorted order, shared by Spearman's ranks and Kendall's counts. */
@@ -88,14 +88,13 @@ export class PreparedPairs {
   }
 
   get ranksY(): Float64Array {
-    return this.memo('ranksY', () => this.ranksOf(this.y, () => this.codesY, () => this.sortedY));
+    return this.memo('ranksY', () => this.ranksOf(this.y, 'sortedY', () => this.codesY, () => this.sortedY));
   }
 
-  private ranksOf(v: Float64Array, codes: () => Codes | null, sorted: () => KeyedOrder): Float64Array {
+  private ranksOf(v: Float64Array, sortKey: 'sortedX' | 'sortedY', codes: () => Codes | null, sorted: () => KeyedOrder): Float64Array {
     // A sort already made (or seeded) costs nothing more; a frequency table of up to 2n + 1024 codes costs less
     // than making one.
-    const key = v === this.x ? 'sortedX' : 'sortedY';
-    if (!this.memos.has(key)) {
+    if (!this.memos.has(sortKey)) {
       const c = codes();
       if (c && c.span <= 2 * v.length + 1024) return countingRanks(c);
     }
