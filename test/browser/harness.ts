@@ -10,6 +10,7 @@ import * as os from 'os';
 import * as path from 'path';
 import { BrowserContext, Page, chromium } from 'playwright-core';
 import type {} from '../../workbench/debug-handle';
+import { pairsWithoutBlanks } from '../helpers/pairs';
 import type { PanelDebug } from '../../taskpane/panel';
 
 declare global {
@@ -223,16 +224,7 @@ export async function columnNumbers(page: Page, sheet: string, column: string, f
 export async function completePairs(page: Page, sheet: string, xColumn: string, yColumn: string, first: number, last: number): Promise<{ x: number[]; y: number[] }> {
   const xs = await columnNumbers(page, sheet, xColumn, first, last);
   const ys = await columnNumbers(page, sheet, yColumn, first, last);
-  const x: number[] = [];
-  const y: number[] = [];
-  xs.forEach((v, i) => {
-    const w = ys[i];
-    if (v !== null && w !== null) {
-      x.push(v);
-      y.push(w);
-    }
-  });
-  return { x, y };
+  return pairsWithoutBlanks(xs, ys);
 }
 
 /** The workbench started and open in Chromium, with the panel's first result on screen and settled. */
