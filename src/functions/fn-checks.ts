@@ -215,7 +215,7 @@ export function REPORT(x: any[][], y: any[][], level?: number, method?: string, 
     if (c.equivalence) {
       const e = c.equivalence;
       rows.push([`Within ±${e.bound}? (equivalence test, ${Number((100 * (1 - 2 * e.alpha)).toPrecision(4))}% interval ${formatNumber(e.interval.lower)} to ${formatNumber(e.interval.upper)})`,
-        e.negligible ? `yes: the correlation is negligible (${formatP(e.pValue)})` : `not shown (${formatP(e.pValue)}): correlations beyond ±${e.bound} cannot be ruled out`]);
+        e.negligible ? `yes: ${c.sensitivity.direction === 'none' ? 'the correlation is negligible' : 'real but negligible'} (${formatP(e.pValue)})` : `not shown (${formatP(e.pValue)}): correlations beyond ±${e.bound} cannot be ruled out`]);
     }
     if (c.bayes) {
       rows.push(['Bayes factor for no correlation, BF01 (Pearson, uniform prior on rho)', Number.isFinite(c.bayes.bf01) ? c.bayes.bf01 : 'beyond 1e308']);

@@ -1,7 +1,8 @@
 /**
  * The verdict card at the top of the Relationship section: the one-line conclusion (does it hold?), the
- * alternatives behind it, and, when the interval includes zero, the evidence for no correlation worth the name (the
- * equivalence test and the Bayes factor), with the smallest correlation these rows can detect. The same lines as
+ * alternatives behind it, the evidence for no correlation worth the name (the equivalence test and the Bayes factor
+ * when the interval includes zero; the equivalence test alone when a clear correlation is negligible), with the
+ * smallest correlation these rows can detect. The same lines as
  * COVARY.SENSITIVITY and COVARY.REPORT.
  */
 import { formatCount, formatR, formatSmallR, pClause } from '../../src/stats/format';
@@ -67,7 +68,7 @@ export class VerdictCard {
     if (v.equivalence) {
       const e = v.equivalence;
       items.push(e.negligible
-        ? `Negligible: the ${Math.round(e.level * 100)}% interval, ${formatR(e.lower)} to ${formatR(e.upper)}, lies within ±${e.bound} (equivalence test, p ${pClause(e.pValue)}).`
+        ? `${v.direction === 'none' ? 'Negligible' : 'Real but negligible'}: the ${Math.round(e.level * 100)}% interval, ${formatR(e.lower)} to ${formatR(e.upper)}, lies within ±${e.bound} (equivalence test, p ${pClause(e.pValue)}).`
         : `Not shown to be negligible: the ${Math.round(e.level * 100)}% interval, ${formatR(e.lower)} to ${formatR(e.upper)}, reaches beyond ±${e.bound} (equivalence test).`);
     }
     if (v.bayes) {

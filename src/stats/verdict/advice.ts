@@ -5,6 +5,7 @@
  * advice say the coefficient can be read as it stands.
  */
 import type { CheckKey, CheckReport, CheckRow } from '../checks/check-report';
+import type { EquivalenceResult } from '../correlation/benchmark';
 import { formatNumber as num } from '../format';
 import { CorrelationResult, isOrdinal, isRobust, Method, METHOD_LABELS } from '../types';
 
@@ -224,11 +225,14 @@ export function recommendCoefficient(report: CheckReport, chosen: CorrelationRes
  * clear relationship and which correlations they cannot rule out (never a direction); otherwise its direction and
  * strength in Cohen's (1988) words, read on the scale of r (Kendall's tau through Greiner's relation), what the
  * p-value is (the chance of data at least this extreme if there were no correlation) and is not (the chance that
- * there is none), and that a correlation does not by itself show cause.
+ * there is none), and that a correlation does not by itself show cause. A clear correlation that the equivalence
+ * test (Schuirmann 1987; see benchmark.ts) places within its bound is read as real but negligible, with the share
+ * of y's variation the far end of its interval would account for.
  * @param significance the level below which p counts as evidence, normally 1 - the interval's level
  * @param columns the columns' names (their headers) when known, so the sentence names them instead of x and y
+ * @param negligible the equivalence test at NEGLIGIBLE_BOUND, when one was made
  */
-export function plainReading(result: CorrelationResult, report: CheckReport | null, significance: number, columns?: { x: string; y: string }): string {
+export function plainReading(result: CorrelationResult, report: CheckReport | null, significance: number, columns?: { x: string; y: string }, negligible?: EquivalenceResult | null): string {
   const xn = columns?.x ?? 'x';
   const yn = columns?.y ?? 'y';
   const sym = coefficientSymbol(result);
@@ -251,6 +255,14 @@ export function plainReading(result: CorrelationResult, report: CheckReport | nu
     return `${caveat} ${n} pairs the data show no clear relationship (${estText}; ${pMeaning})${range}.`;
   }
   const direction = est > 0 ? `${yn} tends to rise as ${xn} rises` : `${yn} tends to fall as ${xn} rises`;
+  if (negligible?.negligible && hasInterval) {
+    // Real but too small to matter: the case a p-value alone gets wrong at thousands of rows.
+    const far = est > 0 ? upper : lower;
+    const share = result.method === 'pearson'
+      ? `even at the far end of its ${levelPct} interval, ${num(far)}, the line through ${xn} accounts for ${String(Number((100 * far * far).toPrecision(2)))}% of the variation in ${yn}`
+      : `even the far end of its ${levelPct} interval is only ${num(far)}`;
+    return `${caveat} ${n.toLocaleString('en-US')} pairs, ${direction}, but negligibly: ${estText} is a ${word} correlation by ${STRENGTH_CONVENTION}, and while ${p < 0.001 ? 'p < 0.001' : pText} makes chance alone an unlikely explanation, the equivalence test places it within ±${negligible.bound} (${negligible.pValue < 0.001 ? 'p < 0.001' : `p = ${String(Number(negligible.pValue.toPrecision(2)))}`}): ${share}. At this many rows even a trivial correlation is significant; this one is real but too small to matter for most decisions.`;
+  }
   return `${caveat} ${n} pairs, ${direction}: ${estText} is a ${word} correlation by ${STRENGTH_CONVENTION}, and ${pMeaning}, so chance alone is an unlikely explanation, though a correlation by itself does not show that ${xn} causes ${yn}.`;
 }
 

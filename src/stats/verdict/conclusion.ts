@@ -1,8 +1,8 @@
 /**
  * Everything the reader is told about one correlation, computed once for REPORT and the panel alike: the
- * coefficient, the advice, whether the conclusion holds (sensitivity.ts), and, when the interval includes zero,
- * the evidence for a correlation too small to matter (an equivalence test) and the Bayes factor, with the smallest
- * correlation these rows could detect.
+ * coefficient, the advice, whether the conclusion holds (sensitivity.ts), the evidence for a correlation too small
+ * to matter (an equivalence test: when the interval includes zero, and when a clear correlation is negligible), the
+ * Bayes factor when the interval includes zero, and the smallest correlation these rows could detect.
  */
 import type { CheckReport } from '../checks/check-report';
 import { bayesCorrelation, BayesResult } from '../correlation/bayes';
@@ -22,7 +22,8 @@ export interface Conclusion {
   correlation: CorrelationResult;
   recommendation: Recommendation;
   sensitivity: Sensitivity;
-  /** When the interval includes zero: is the correlation within +/- NEGLIGIBLE_BOUND? */
+  /** Is the correlation within +/- NEGLIGIBLE_BOUND? Given when the interval includes zero, and when a clear
+   *  correlation is negligible all the same (real but too small to matter); null otherwise. */
   equivalence: EquivalenceResult | null;
   /** When the interval includes zero: the Bayes factor for Pearson's r, uniform prior, even prior odds. */
   bayes: BayesResult | null;
@@ -57,12 +58,16 @@ export function conclude(prepared: PreparedPairs, report: CheckReport, opts: Con
   const alpha = 1 - opts.level;
   let equivalence: EquivalenceResult | null = null;
   let bayes: BayesResult | null = null;
+  // The equivalence test answers "too small to matter?" both ways: with no clear direction, whether the data
+  // rule out a correlation worth the name; with a clear one (at thousands of rows even r = 0.02 is significant),
+  // whether it is real but negligible. A clear correlation that is not shown negligible needs no extra line.
+  try {
+    const e = equivalenceTest(correlation.statistic, n, opts.method, NEGLIGIBLE_BOUND, Math.min(alpha, 0.49));
+    if (sens.direction === 'none' || e.negligible) equivalence = e;
+  } catch {
+    equivalence = null; // robust and ordinal coefficients, a perfect r, too few pairs
+  }
   if (sens.direction === 'none') {
-    try {
-      equivalence = equivalenceTest(correlation.statistic, n, opts.method, NEGLIGIBLE_BOUND, Math.min(alpha, 0.49));
-    } catch {
-      equivalence = null;
-    }
     try {
       const pearson = opts.method === 'pearson' ? correlation : correlatePrepared(prepared, { method: 'pearson', tail: 'both', level: opts.level });
       bayes = bayesCorrelation(pearson.statistic, n);
@@ -78,5 +83,5 @@ export function conclude(prepared: PreparedPairs, report: CheckReport, opts: Con
       detectable = null;
     }
   }
-  return { correlation, recommendation, sensitivity: sens, equivalence, bayes, detectable, reading: plainReading(correlation, report, alpha, opts.columns) };
+  return { correlation, recommendation, sensitivity: sens, equivalence, bayes, detectable, reading: plainReading(correlation, report, alpha, opts.columns, equivalence) };
 }

@@ -131,3 +131,54 @@ test('two five-point rating items: the polychoric correlation is named', () => {
   expect(c.recommendation.remedy).toBe('ordinal');
   expect(c.recommendation.reason).toMatch(/rating-scale items/);
 });
+
+/** Pearson's r by its definition, two-pass (the handbook formula, not the project's co-moments). */
+function rByDefinition(x: ArrayLike<number>, y: ArrayLike<number>): number {
+  const n = x.length;
+  let mx = 0, my = 0;
+  for (let i = 0; i < n; i++) { mx += x[i]; my += y[i]; }
+  mx /= n; my /= n;
+  let sxy = 0, sxx = 0, syy = 0;
+  for (let i = 0; i < n; i++) { const a = x[i] - mx, b = y[i] - my; sxy += a * b; sxx += a * a; syy += b * b; }
+  return sxy / Math.sqrt(sxx * syy);
+}
+/** Fisher's (1921) interval tanh(atanh r +/- z / sqrt(n - 3)); z from R 4.2.2: qnorm(0.95) = 1.6448536269514715,
+ *  qnorm(0.975) = 1.9599639845400536. */
+const fisherEnds = (r: number, n: number, z: number) => [Math.tanh(Math.atanh(r) - z / Math.sqrt(n - 3)), Math.tanh(Math.atanh(r) + z / Math.sqrt(n - 3))];
+
+test('100,000 rows and r near 0.02: significant, yet read as real but negligible, with the share of y it could explain', () => {
+  const n = 100000;
+  const x = normals(21, n);
+  const z = normals(22, n);
+  const y = Float64Array.from(x, (v, i) => 50 + 0.2 * v + 10 * z[i]);
+  const { c } = verdictOf(x, y);
+  const r = rByDefinition(x, y);
+  const [lo90, hi90] = fisherEnds(r, n, 1.6448536269514715);
+  const [, hi95] = fisherEnds(r, n, 1.9599639845400536);
+  // The premise, from the formulas above: the 95% interval excludes 0 while the 90% one lies within +/-0.1.
+  expect([lo90 > 0, hi90 < 0.1]).toEqual([true, true]);
+  expect(c.correlation.pValue).toBeLessThan(0.05);
+  expect(c.sensitivity.direction).toBe('positive');
+  expect(c.equivalence).not.toBeNull();
+  expect(c.equivalence!.negligible).toBe(true);
+  expect(c.equivalence!.interval.lower).toBeCloseTo(lo90, 12);
+  expect(c.equivalence!.interval.upper).toBeCloseTo(hi90, 12);
+  expect(c.bayes).toBeNull(); // the Bayes factor is for "is there any correlation?", settled here
+  expect(c.reading).toMatch(/^Across 100,000 pairs, y tends to rise as x rises, but negligibly: r = /);
+  expect(c.reading).toContain(`accounts for ${String(Number((100 * hi95 * hi95).toPrecision(2)))}% of the variation in y`);
+  expect(c.reading).toMatch(/real but too small to matter/);
+  expect(c.reading).not.toMatch(/no clear relationship/);
+});
+
+test('a clear correlation that reaches beyond 0.1 is not called negligible, however many rows', () => {
+  const n = 100000;
+  const x = normals(23, n);
+  const z = normals(24, n);
+  const y = Float64Array.from(x, (v, i) => 0.3 * v + z[i]);
+  const { c } = verdictOf(x, y);
+  const [lo90] = fisherEnds(rByDefinition(x, y), n, 1.6448536269514715);
+  expect(lo90).toBeGreaterThan(0.1);
+  expect(c.equivalence).toBeNull();
+  expect(c.reading).not.toMatch(/negligibl/);
+  expect(c.reading).toMatch(/y tends to rise as x rises: r = /);
+});
