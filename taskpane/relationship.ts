@@ -7,7 +7,7 @@
  * Statistics use every row; only the drawing is thinned (see draw-sample.ts).
  */
 import { sheetRowNaming } from '../src/sheet/naming';
-import { listWords, readCorrelation, Recommendation } from '../src/stats/verdict/advice';
+import { listWords, readCorrelation, readTurn, Recommendation } from '../src/stats/verdict/advice';
 import { conclude } from '../src/stats/verdict/conclusion';
 import type { SensitivityRow, Summary } from '../src/stats/verdict/sensitivity';
 import type { Direction } from '../src/stats/checks/verdict';
@@ -355,7 +355,8 @@ export function analyseRelationship(p: PairedRows, opts: RelationshipOptions, me
       smooth,
       qqLine,
       reading: [
-        ...readCorrelation(correlation, p.xHeader, p.yHeader, formatR),
+        // A curve that turns back is read side by side: one direction, or "no clear relationship", would be wrong.
+        ...(conclusion.turn ? readTurn(conclusion.turn, p.xHeader, p.yHeader, formatR) : readCorrelation(correlation, p.xHeader, p.yHeader, formatR)),
         ...(correlation.skippedRows
           ? [correlation.skippedRows.length === 0
             ? 'The skipped correlation found no row outlying in both columns together, so it equals Pearson here.'

@@ -209,7 +209,7 @@ export function REPORT(x: any[][], y: any[][], level?: number, method?: string, 
     }
     rows.push(
       ['Flags (assumption checks, alpha 0.05)', flagsText(report)],
-      ['Recommended coefficient', c.recommendation.name === 'none' ? 'none is reliable on these data' : c.recommendation.name],
+      ['Recommended coefficient', c.recommendation.name === 'none' ? (c.recommendation.remedy === 'each-side' ? 'none: report each side of the turn' : 'none is reliable on these data') : c.recommendation.name],
       ['Why', c.recommendation.reason],
     );
     if (c.equivalence) {

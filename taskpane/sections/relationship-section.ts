@@ -240,6 +240,7 @@ export class RelationshipSection {
 /** The advice's bold start: the remedy comes first when a row should be checked before anything else. */
 function adviceHead(rec: RelationshipView['recommendation']): string {
   if (rec.remedy === 'check-row') return 'Check a row first. ';
+  if (rec.remedy === 'each-side') return 'No single coefficient fits this curve. ';
   if (!rec.changed) return 'Advice: ';
   return rec.name === 'none' ? 'No coefficient is reliable here. ' : `Consider ${rec.name} instead. `;
 }

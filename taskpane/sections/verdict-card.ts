@@ -16,6 +16,7 @@ const HEADS: Record<Summary, string> = {
   'depends on the row order': 'Depends on the row order',
   'changes without the flagged rows': 'Changes without the flagged rows',
   'changes with the coefficient': 'Changes with the coefficient',
+  'turns back': 'Turns back',
   'too few rows to say': 'Too few rows to say',
 };
 
@@ -25,6 +26,7 @@ const KIND: Record<Summary, 'holds' | 'fragile' | 'unknown'> = {
   'depends on the row order': 'fragile',
   'changes without the flagged rows': 'fragile',
   'changes with the coefficient': 'fragile',
+  'turns back': 'fragile',
   'too few rows to say': 'unknown',
 };
 

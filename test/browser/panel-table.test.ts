@@ -110,6 +110,34 @@ describe('the heatmap of the table', () => {
   });
 });
 
+describe('a pair whose relationship turns back', () => {
+  test('Parts discount % and Margin %: the card says "Turns back" and the reading gives each side, not one direction', async () => {
+    await tableDrawn();
+    // Margin % (table place 4) against Parts discount % (place 3); places count from 0 among the drawn columns.
+    await afterPanelRedraw(page(), () => heatCell(3, 2).click());
+    await expect(testid('main-x-column').inputValue()).resolves.toBe('Parts discount %');
+    await expect(testid('verdict-summary').textContent()).resolves.toBe('Turns back');
+    const reading = (await testid('reading').textContent())!;
+    expect(reading).toMatch(/^Margin % follows Parts discount % along a curve that peaks at Parts discount % = /);
+    expect(reading).not.toMatch(/No clear relationship/);
+    // Each side's r against Pearson's r by its definition over the grid's cells on that side of the turn.
+    const { x, y } = await completePairs(page(), 'North', 'D', 'E', 2, 49);
+    const at = Number(/peaks at Parts discount % = (\d+(?:\.\d+)?)/.exec(reading)![1]);
+    const shown = [...reading.matchAll(/r = (\u2212?[\d.]+) on (\d+) rows/g)].map((m) => `${m[1]} on ${m[2]}`);
+    const side = (keep: (v: number) => boolean) => {
+      const pairs = x.map((v, i) => [v, y[i]]).filter(([v]) => keep(v));
+      const r = pearsonReference(pairs.map((p) => p[0]), pairs.map((p) => p[1]));
+      return `${r.toFixed(2).replace('-', '\u2212')} on ${pairs.length}`; // shown to two decimals
+    };
+    // The turn is printed to 3 significant figures; no x lies between that and the turn itself on these cells.
+    expect(shown).toEqual([side((v) => v <= at), side((v) => v > at)]);
+    await expect(testid('advice').textContent()).resolves.toMatch(/^No single coefficient fits this curve\. /);
+    await testid('verdict-card').screenshot({ path: path.join(__dirname, '../../test-artifacts', 'panel-verdict-turns-back.png') });
+    await afterPanelRedraw(page(), () => heatCell(1, 0).click());
+    await expect(testid('main-y-column').inputValue()).resolves.toBe('Repairs per week');
+  });
+});
+
 describe('the partial correlation', () => {
   test('holding one column fixed gives Yule\u2019s first-order partial r, beside the plain r on the same rows', async () => {
     await tableDrawn();

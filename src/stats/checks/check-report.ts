@@ -65,7 +65,8 @@ export interface CheckRow {
   point?: number;
   /** Where that point is, as named in the messages: "row 12", "position 3". */
   place?: string;
-  /** Further figures behind the row, e.g. skewness, excess kurtosis, df, cut-off. */
+  /** Further figures behind the row, e.g. skewness, excess kurtosis, df, cut-off; on the straight-line row judged a
+   *  problem, turnAt: where the least-squares parabola turns, in x's units, when that lies inside x's range. */
   detail: Record<string, number>;
 }
 

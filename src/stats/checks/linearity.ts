@@ -14,6 +14,10 @@ export interface CurvatureTest {
   pValue: number;
   /** Which way the points bend away from the line: "up" (convex, U-like) or "down" (concave). */
   bend: 'up' | 'down';
+  /** The parabola fitted to the line's residuals, in the units of x and of the residuals: residual ~ constant +
+   *  linear (x - centre) + square (x - centre)^2. With the line's slope b, the least-squares quadratic in x has
+   *  slope b + linear + 2 square (x - centre), so it turns at x = centre - (b + linear) / (2 square). */
+  quadratic: { centre: number; linear: number; square: number };
 }
 
 /** out[i] = v[i] / s (out may be v); returns the sum of out (in row order). */
@@ -138,6 +142,10 @@ export function curvatureTest(x: ArrayLike<number>, residuals: ArrayLike<number>
   const ke = centreThenDot(e, eMean, c) / cc;
   const eq = subtractThenDot(e, ke, c, q);
   const beta = eq / qq;
+  // q = u^2 - (qMean + mean2) - (k1 + k2) u in the centred, scaled u = (x - centre) / sc, and the residuals / se
+  // are eMean + ke u + beta q + what the parabola leaves: back in x's and the residuals' units below.
+  const k = k1 + k2;
+  const centre = mean + sc * cMean;
   const reduction = beta * beta * qq;
   // Residuals of the quadratic fit, summed directly rather than as RSS_line - reduction, which would cancel when
   // a parabola fits almost exactly.
@@ -158,5 +166,6 @@ export function curvatureTest(x: ArrayLike<number>, residuals: ArrayLike<number>
     df2,
     pValue: statistic === Infinity ? 0 : fSf(statistic, 1, df2),
     bend: beta >= 0 ? 'up' : 'down',
+    quadratic: { centre, linear: (se * (ke - beta * k)) / sc, square: (se * beta) / (sc * sc) },
   };
 }

@@ -15,7 +15,7 @@ import { CheckEffect, CheckKey, CheckReport, CheckRow, PointDiagnostics } from '
 import { dagostinoPearson } from './dagostino';
 import { durbinWatson, DW_EXACT_MAX } from './durbin-watson';
 import { bonferroniOutlierP, cookCutoff, lineInfluence, LineInfluence } from './influence';
-import { curvatureTest } from './linearity';
+import { curvatureTest, CurvatureTest } from './linearity';
 import { shapeMoments } from './moments';
 import { SHAPIRO_WILK_MAX_N, shapiroWilk } from './shapiro-wilk';
 import {
@@ -299,7 +299,7 @@ export function runChecks(xIn: ArrayLike<number>, yIn: ArrayLike<number>, opts: 
     onLine
       ? notTestable('normal-residuals', n > SHAPIRO_WILK_MAX_N ? K2_TEST : SW_TEST, ON_LINE)
       : normalityRow('normal-residuals', fit.residuals, ctx, MIN_FOR_RESIDUALS),
-    straightLineRow(xs, fit, onLine, ctx),
+    straightLineRow(xs, fit, onLine, ctx, scaleX),
     evenSpreadRow(xs, fit, infl, onLine, ctx, xCuts),
     outlierRow(xs, ys, infl, onLine, ctx, xCuts),
     influenceRow(infl, onLine, ctx),
@@ -350,7 +350,23 @@ function scaledCopy(v: Float64Array, scale: number): Float64Array {
   return out;
 }
 
-function straightLineRow(x: Float64Array, fit: LineFit, onLine: boolean, ctx: Context): CheckRow {
+/**
+ * Where the least-squares parabola through the points turns (its slope zero), in x's units, when that lies
+ * within x's range; NaN otherwise. The curvature test gives the parabola fitted to the line's residuals, so the
+ * quadratic in x has slope b + linear + 2 square (x - centre).
+ */
+function turningPoint(x: Float64Array, fit: LineFit, q: CurvatureTest['quadratic']): number {
+  if (!(q.square !== 0 && Number.isFinite(q.square))) return NaN;
+  const at = q.centre - (fit.slope + q.linear) / (2 * q.square);
+  let lo = Infinity, hi = -Infinity;
+  for (let i = 0; i < x.length; i++) {
+    if (x[i] < lo) lo = x[i];
+    if (x[i] > hi) hi = x[i];
+  }
+  return at > lo && at < hi ? at : NaN;
+}
+
+function straightLineRow(x: Float64Array, fit: LineFit, onLine: boolean, ctx: Context, scaleX: number): CheckRow {
   const key = 'straight-line';
   const test = 'F test for adding x² (RESET)';
   if (fit.n < MIN_FOR_RESIDUALS) return notTestable(key, test, tooFew(MIN_FOR_RESIDUALS));
@@ -358,9 +374,15 @@ function straightLineRow(x: Float64Array, fit: LineFit, onLine: boolean, ctx: Co
   if (onLine) return notTestable(key, test, ON_LINE);
   return safely(key, test, () => {
     const t = curvatureTest(x, fit.residuals);
-    const detail = { df1: t.df1, df2: t.df2 };
+    const detail: Record<string, number> = { df1: t.df1, df2: t.df2 };
+    // A curve that matters may turn back within the data: where, in x's own units (see verdict/turn.ts).
+    const turn = (): void => {
+      const at = turningPoint(x, fit, t.quadratic);
+      if (at === at) detail.turnAt = at * scaleX;
+    };
     const base = { key, label: LABELS[key], test, threshold: THRESHOLDS[key] } as const;
     if (t.statistic === Infinity) {
+      turn();
       return {
         ...base, statistic: null, pValue: 0, verdict: 'problem', detected: true,
         effect: { label: 'curve', value: Infinity, text: 'the points lie exactly on a curve' },
@@ -374,6 +396,7 @@ function straightLineRow(x: Float64Array, fit: LineFit, onLine: boolean, ctx: Co
     const detected = t.pValue < ctx.alpha;
     const verdict = judge(key, detected, f2 >= CURVE_F2_LIMIT, fit.n);
     const effect: CheckEffect = { label: 'curve', value: f2, text: `a curve takes up ${num(100 * share)}% of the scatter around the line (f² = ${num(f2)})` };
+    if (verdict === 'problem') turn();
     const meaning =
       verdict === 'problem'
         ? `The points bend ${t.bend}ward away from the straight line (${formatP(t.pValue)}; ${effect.text}), so r describes the relationship only in part.`

@@ -6,11 +6,12 @@
  */
 import type { CheckKey, CheckReport, CheckRow } from '../checks/check-report';
 import type { EquivalenceResult } from '../correlation/benchmark';
+import type { Turn } from './turn';
 import { formatNumber as num } from '../format';
 import { CorrelationResult, isOrdinal, isRobust, Method, METHOD_LABELS } from '../types';
 
 /** The remedy an advice names, for the panel's buttons and the tests. */
-export type Remedy = 'check-row' | 'collect-across-x' | 'rank' | 'robust' | 'ordinal' | 'effective-rows' | 'log' | 'more-rows' | null;
+export type Remedy = 'check-row' | 'collect-across-x' | 'rank' | 'robust' | 'ordinal' | 'effective-rows' | 'log' | 'more-rows' | 'each-side' | null;
 
 /** What to report instead (or as well), and why. */
 export interface Recommendation {
@@ -34,6 +35,8 @@ export interface AdviceContext {
   robust?: number;
   /** Pearson's r on the same rows. */
   pearson?: number;
+  /** Where the relationship turns back, when it does (turn.ts). */
+  turn?: Turn | null;
 }
 
 /** Cohen's (1988) words for the size of a correlation: .1 small, .3 medium, .5 large. */
@@ -112,6 +115,8 @@ export function tooFewToJudge(report: CheckReport): boolean {
  * that turns back). In order:
  * - both columns rating-scale items: the polychoric correlation (Olsson 1979);
  * - one point sets the slope: no coefficient is reliable; collect data across x;
+ * - the relationship turns back (turn.ts: clear correlations of opposite sign on the two sides of the fitted
+ *   parabola's turn): no single coefficient, rank ones included; report each side, or the curve;
  * - an outlier whose value is far outside its column: check that row for a data-entry error first;
  * - neighbouring rows alike: keep the coefficient, but read the p-value and interval with the effective rows
  *   (Pyper & Peterman 1998) or correlate the changes from row to row; a rank coefficient fixes neither;
@@ -159,6 +164,21 @@ export function recommendCoefficient(report: CheckReport, chosen: CorrelationRes
     return {
       name: 'none', method: null, changed: true, remedy: 'collect-across-x',
       reason: `${capital(infl.flag ?? 'one point sets the slope')}: every coefficient, rank-based ones included, rests on that point, so collect data across the range of x before reading a correlation.${orderWords}`,
+    };
+  }
+  if (context.turn) {
+    const t = context.turn;
+    const side = (r: CorrelationResult) => `r = ${num(r.statistic)} on ${r.n.toLocaleString('en-US')} rows`;
+    const orderNote = order
+      ? t.xInRowOrder
+        ? ' The rows run in the order of x, so the curve itself makes neighbouring rows alike; the row-order flag is its doing.'
+        : orderWords
+      : '';
+    const far = rowOf(report, 'outliers');
+    const farNote = far.verdict === 'problem' && far.detail.farOut === 1 ? ` Check ${far.place} too: its value lies far outside the rest of its column.` : '';
+    return {
+      name: 'none', method: null, changed: true, remedy: 'each-side',
+      reason: `The points ${t.shape === 'peak' ? 'rise and then fall' : 'fall and then rise'}: the fitted curve turns at x = ${num(t.at)}, inside the data, so Pearson's r and the rank coefficients average the two sides into one number that describes neither. Report each side (x at or below ${num(t.at)}: ${side(t.below)}; above: ${side(t.above)}) or the curve itself, and look at the scatter.${orderNote}${farNote}`,
     };
   }
   if (context.ratingScales && !isOrdinal(chosen.method) && chosen.name !== 'phi') {
@@ -231,8 +251,9 @@ export function recommendCoefficient(report: CheckReport, chosen: CorrelationRes
  * @param significance the level below which p counts as evidence, normally 1 - the interval's level
  * @param columns the columns' names (their headers) when known, so the sentence names them instead of x and y
  * @param negligible the equivalence test at NEGLIGIBLE_BOUND, when one was made
+ * @param turn where the relationship turns back, when it does (turn.ts): then the sentence reads each side
  */
-export function plainReading(result: CorrelationResult, report: CheckReport | null, significance: number, columns?: { x: string; y: string }, negligible?: EquivalenceResult | null): string {
+export function plainReading(result: CorrelationResult, report: CheckReport | null, significance: number, columns?: { x: string; y: string }, negligible?: EquivalenceResult | null, turn?: Turn | null): string {
   const xn = columns?.x ?? 'x';
   const yn = columns?.y ?? 'y';
   const sym = coefficientSymbol(result);
@@ -248,6 +269,11 @@ export function plainReading(result: CorrelationResult, report: CheckReport | nu
   const { lower, upper } = result.interval;
   const hasInterval = Number.isFinite(lower) && Number.isFinite(upper);
   const clear = hasInterval ? lower > 0 || upper < 0 : p < significance;
+  if (turn) {
+    // Neither "no clear relationship" nor one direction is true of a curve that turns back.
+    const side = (r: CorrelationResult, where: string) => `${where}, ${yn} tends to ${r.statistic > 0 ? 'rise' : 'fall'} as ${xn} rises (r = ${num(r.statistic)}, ${r.n.toLocaleString('en-US')} rows)`;
+    return `Across ${n.toLocaleString('en-US')} pairs, ${yn} follows ${xn} along a curve that ${turn.shape === 'peak' ? 'peaks' : 'bottoms out'} at ${xn} = ${num(turn.at)}: ${side(turn.below, `at or below it`)}; ${side(turn.above, 'above it')}. The single ${estText} averages the two sides away and understates how closely ${yn} follows ${xn}; and a relationship by itself does not show that ${xn} causes ${yn}.`;
+  }
   if (!clear || est === 0) {
     const range = hasInterval
       ? `: the ${levelPct} interval runs from ${num(lower)} to ${num(upper)}, so the data cannot rule out a correlation as strong as ${num(Math.abs(lower))} in the negative direction or ${num(Math.abs(upper))} in the positive`
@@ -264,6 +290,21 @@ export function plainReading(result: CorrelationResult, report: CheckReport | nu
     return `${caveat} ${n.toLocaleString('en-US')} pairs, ${direction}, but negligibly: ${estText} is a ${word} correlation by ${STRENGTH_CONVENTION}, and while ${p < 0.001 ? 'p < 0.001' : pText} makes chance alone an unlikely explanation, the equivalence test places it within ±${negligible.bound} (${negligible.pValue < 0.001 ? 'p < 0.001' : `p = ${String(Number(negligible.pValue.toPrecision(2)))}`}): ${share}. At this many rows even a trivial correlation is significant; this one is real but too small to matter for most decisions.`;
   }
   return `${caveat} ${n} pairs, ${direction}: ${estText} is a ${word} correlation by ${STRENGTH_CONVENTION}, and ${pMeaning}, so chance alone is an unlikely explanation, though a correlation by itself does not show that ${xn} causes ${yn}.`;
+}
+
+/**
+ * The panel's reading of a relationship that turns back (turn.ts), in short sentences naming the columns: where
+ * it turns, each side's correlation, and why the single coefficient misleads.
+ * @example readTurn(turn, 'Overtime', 'Output', formatR)[0] // "Output follows Overtime along a curve that peaks at Overtime = 25.3."
+ */
+export function readTurn(turn: Turn, xName: string, yName: string, show: (v: number) => string): string[] {
+  const side = (r: CorrelationResult, where: string) => `${where}, higher ${xName} tends to go with ${r.statistic > 0 ? 'higher' : 'lower'} ${yName}: r = ${show(r.statistic)} on ${r.n.toLocaleString('en-US')} rows.`;
+  return [
+    `${yName} follows ${xName} along a curve that ${turn.shape === 'peak' ? 'peaks' : 'bottoms out'} at ${xName} = ${num(turn.at)}.`,
+    side(turn.below, `At or below ${num(turn.at)}`),
+    side(turn.above, `Above ${num(turn.at)}`),
+    'A single correlation averages the two sides away, so it understates how closely they are related.',
+  ];
 }
 
 /**

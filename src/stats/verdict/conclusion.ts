@@ -2,7 +2,8 @@
  * Everything the reader is told about one correlation, computed once for REPORT and the panel alike: the
  * coefficient, the advice, whether the conclusion holds (sensitivity.ts), the evidence for a correlation too small
  * to matter (an equivalence test: when the interval includes zero, and when a clear correlation is negligible), the
- * Bayes factor when the interval includes zero, and the smallest correlation these rows could detect.
+ * Bayes factor when the interval includes zero (neither when the relationship turns back, which a flat average
+ * would misstate), where the relationship turns back, and the smallest correlation these rows could detect.
  */
 import type { CheckReport } from '../checks/check-report';
 import { bayesCorrelation, BayesResult } from '../correlation/bayes';
@@ -14,6 +15,7 @@ import { CorrelationResult, IntervalMethod, Method } from '../types';
 import { plainReading, recommendCoefficient, Recommendation } from './advice';
 import { sensitivity, Sensitivity } from './sensitivity';
 import { looksOrdinal } from '../ordinal/categories';
+import { turnOf, Turn } from './turn';
 
 /** The equivalence bound used when none is asked for: |rho| < 0.1, below Cohen's (1988) "small". */
 export const NEGLIGIBLE_BOUND = 0.1;
@@ -29,6 +31,8 @@ export interface Conclusion {
   bayes: BayesResult | null;
   /** The smallest correlation these rows detect 8 times in 10 at the interval's alpha (two-sided, exact). */
   detectable: number | null;
+  /** Where the relationship turns back (y rises then falls, or the reverse), when it does; see turn.ts. */
+  turn: Turn | null;
   reading: string;
 }
 
@@ -46,11 +50,13 @@ export function conclude(prepared: PreparedPairs, report: CheckReport, opts: Con
   const correlation = correlatePrepared(prepared, { method: opts.method, tail: 'both', level: opts.level, interval: opts.interval });
   let yAllPositive = true;
   for (let i = 0; i < prepared.n && yAllPositive; i++) if (!(prepared.y[i] > 0)) yAllPositive = false;
-  const sens = sensitivity(prepared, report, { ...opts, main: correlation });
+  const turn = turnOf(prepared, report, opts.level);
+  const sens = sensitivity(prepared, report, { ...opts, main: correlation, turn });
   const robustRow = sens.rows.find((r) => r.scenario === 'robust coefficient');
   const pearson = opts.method === 'pearson' ? correlation.statistic : undefined;
   const recommendation = recommendCoefficient(report, correlation, yAllPositive, {
     ratingScales: looksOrdinal(prepared.x) && looksOrdinal(prepared.y),
+    turn,
     robust: robustRow?.statistic,
     pearson: pearson ?? (robustRow ? correlatePrepared(prepared, { method: 'pearson', tail: 'both', level: opts.level }).statistic : undefined),
   });
@@ -61,13 +67,16 @@ export function conclude(prepared: PreparedPairs, report: CheckReport, opts: Con
   // The equivalence test answers "too small to matter?" both ways: with no clear direction, whether the data
   // rule out a correlation worth the name; with a clear one (at thousands of rows even r = 0.02 is significant),
   // whether it is real but negligible. A clear correlation that is not shown negligible needs no extra line.
-  try {
-    const e = equivalenceTest(correlation.statistic, n, opts.method, NEGLIGIBLE_BOUND, Math.min(alpha, 0.49));
-    if (sens.direction === 'none' || e.negligible) equivalence = e;
-  } catch {
-    equivalence = null; // robust and ordinal coefficients, a perfect r, too few pairs
+  // A relationship that turns back is not "too small to matter" for being flat on average: no such lines then.
+  if (!turn) {
+    try {
+      const e = equivalenceTest(correlation.statistic, n, opts.method, NEGLIGIBLE_BOUND, Math.min(alpha, 0.49));
+      if (sens.direction === 'none' || e.negligible) equivalence = e;
+    } catch {
+      equivalence = null; // robust and ordinal coefficients, a perfect r, too few pairs
+    }
   }
-  if (sens.direction === 'none') {
+  if (sens.direction === 'none' && !turn) {
     try {
       const pearson = opts.method === 'pearson' ? correlation : correlatePrepared(prepared, { method: 'pearson', tail: 'both', level: opts.level });
       bayes = bayesCorrelation(pearson.statistic, n);
@@ -83,5 +92,5 @@ export function conclude(prepared: PreparedPairs, report: CheckReport, opts: Con
       detectable = null;
     }
   }
-  return { correlation, recommendation, sensitivity: sens, equivalence, bayes, detectable, reading: plainReading(correlation, report, alpha, opts.columns, equivalence) };
+  return { correlation, recommendation, sensitivity: sens, equivalence, bayes, detectable, turn, reading: plainReading(correlation, report, alpha, opts.columns, equivalence, turn) };
 }

@@ -10,9 +10,10 @@ import { PreparedPairs } from '../correlation/prepared';
 import { formatNumber as num } from '../format';
 import { CorrelationResult, isClassical, isRobust, Method } from '../types';
 import { listWords, tooFewToJudge } from './advice';
+import type { Turn } from './turn';
 
 /** The alternatives tried. */
-export type Scenario = 'as computed' | 'rank coefficient' | 'robust coefficient' | 'without the most influential row' | 'without the flagged rows' | 'effective rows';
+export type Scenario = 'as computed' | 'rank coefficient' | 'robust coefficient' | 'without the most influential row' | 'without the flagged rows' | 'effective rows' | 'below the turn' | 'above the turn';
 
 export interface SensitivityRow {
   scenario: Scenario;
@@ -37,6 +38,7 @@ export type Summary =
   | 'depends on the row order'
   | 'changes without the flagged rows'
   | 'changes with the coefficient'
+  | 'turns back'
   | 'too few rows to say';
 
 export interface Sensitivity {
@@ -54,6 +56,8 @@ export interface SensitivityOptions {
   name: (i: number) => string;
   /** The coefficient as computed, when the caller already has it (a bootstrap interval is not drawn twice). */
   main?: CorrelationResult;
+  /** Where the relationship turns back, when it does (turn.ts). */
+  turn?: Turn | null;
 }
 
 /** Above this many rows a rank coefficient is not recomputed without rows (see sensitivity). */
@@ -116,9 +120,10 @@ export function withEffectiveRows(res: CorrelationResult, effective: number): Co
  * - without the single most influential row (the largest change in Pearson's r when one row is left out,
  *   report.leaveOneOut, O(n));
  * - without all the flagged rows (outliers, influential points), when there are any and at most a tenth of the rows;
- * - with the effective rows when neighbouring rows are alike (fewer than 95% of the rows count).
- * Summary, in this order: too few rows to say (four or more of the eight checks could not see or run), depends on
- * the row order, rests on one row, changes without the flagged rows, changes with the coefficient, and otherwise
+ * - with the effective rows when neighbouring rows are alike (fewer than 95% of the rows count);
+ * - on each side of the turn, when the relationship turns back (turn.ts).
+ * Summary, in this order: too few rows to say (four or more of the eight checks could not see or run), turns back
+ * (y rises then falls, or the reverse: no one direction describes it), depends on the row order, rests on one row, changes without the flagged rows, changes with the coefficient, and otherwise
  * holds under every check.
  */
 export function sensitivity(prepared: PreparedPairs, report: CheckReport, opts: SensitivityOptions): Sensitivity {
@@ -185,6 +190,11 @@ export function sensitivity(prepared: PreparedPairs, report: CheckReport, opts: 
     rows.push(row);
     orderChange = !row.holds;
   }
+  const turn = opts.turn ?? null;
+  if (turn) {
+    rows.push(rowOf('below the turn', `x at or below the turn, ${num(turn.at)}`, turn.below, direction));
+    rows.push(rowOf('above the turn', `x above the turn, ${num(turn.at)}`, turn.above, direction));
+  }
   const rankChange = rows.some((r) => (r.scenario === 'rank coefficient' || r.scenario === 'robust coefficient') && !r.holds);
   const conclusion = DIRECTION_WORDS[direction];
   let summary: Summary;
@@ -197,6 +207,10 @@ export function sensitivity(prepared: PreparedPairs, report: CheckReport, opts: 
     line = direction === 'none'
       ? `Too few rows to say: with ${n} rows the data show no clear correlation, and the checks cannot see whether the assumptions hold, so this is not evidence that there is none.`
       : `Too few rows to say: with ${n} rows the checks cannot see whether the ${direction} correlation would survive a departure from the assumptions.`;
+  } else if (turn) {
+    summary = 'turns back';
+    const side = (r: CorrelationResult) => `${r.statistic > 0 ? 'a positive' : 'a negative'} correlation (r = ${num(r.statistic)}, ${r.n.toLocaleString('en-US')} rows)`;
+    line = `Turns back: the relationship changes direction at x = ${num(turn.at)}. At or below it, ${side(turn.below)}; above it, ${side(turn.above)}. No single coefficient describes a relationship that ${turn.shape === 'peak' ? 'rises and then falls' : 'falls and then rises'}: report each side, or the curve.`;
   } else if (orderChange) {
     summary = 'depends on the row order';
     const row = rows.find((r) => r.scenario === 'effective rows')!;
