@@ -188,22 +188,7 @@ export function foreignRequests(requests: string[], origin: string): string[] {
   return requests.filter((u) => !(u.startsWith(origin + '/') || u.startsWith('data:')));
 }
 
-/** Pearson's r by the textbook two-pass definition, written out here as an independent check of the wiring
- *  (Pearson, K. (1896). Philosophical Transactions of the Royal Society A, 187, 253–318). */
-export function pearsonReference(x: number[], y: number[]): number {
-  const n = x.length;
-  const mx = x.reduce((a, b) => a + b, 0) / n;
-  const my = y.reduce((a, b) => a + b, 0) / n;
-  let sxy = 0;
-  let sxx = 0;
-  let syy = 0;
-  for (let i = 0; i < n; i++) {
-    sxy += (x[i] - mx) * (y[i] - my);
-    sxx += (x[i] - mx) ** 2;
-    syy += (y[i] - my) ** 2;
-  }
-  return sxy / Math.sqrt(sxx * syy);
-}
+export { pearsonReference } from '../helpers/pearson-reference';
 
 /** Numbers in a column of the sheet through the page handle (rows first..last). */
 export async function columnNumbers(page: Page, sheet: string, column: string, first: number, last: number): Promise<(number | null)[]> {

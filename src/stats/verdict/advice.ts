@@ -166,6 +166,9 @@ export function recommendCoefficient(report: CheckReport, chosen: CorrelationRes
       reason: `${capital(infl.flag ?? 'one point sets the slope')}: every coefficient, rank-based ones included, rests on that point, so collect data across the range of x before reading a correlation.${orderWords}`,
     };
   }
+  const outlier = rowOf(report, 'outliers');
+  // An outlier whose value is far outside its column: a typing slip to check before anything else is read.
+  const farOut = outlier.verdict === 'problem' && outlier.detail.farOut === 1;
   if (context.turn) {
     const t = context.turn;
     const side = (r: CorrelationResult) => `r = ${num(r.statistic)} on ${r.n.toLocaleString('en-US')} rows`;
@@ -174,8 +177,7 @@ export function recommendCoefficient(report: CheckReport, chosen: CorrelationRes
         ? ' The rows run in the order of x, so the curve itself makes neighbouring rows alike; the row-order flag is its doing.'
         : orderWords
       : '';
-    const far = rowOf(report, 'outliers');
-    const farNote = far.verdict === 'problem' && far.detail.farOut === 1 ? ` Check ${far.place} too: its value lies far outside the rest of its column.` : '';
+    const farNote = farOut ? ` Check ${outlier.place} too: its value lies far outside the rest of its column.` : '';
     return {
       name: 'none', method: null, changed: true, remedy: 'each-side',
       reason: `The points ${t.shape === 'peak' ? 'rise and then fall' : 'fall and then rise'}: the fitted curve turns at x = ${num(t.at)}, inside the data, so Pearson's r and the rank coefficients average the two sides into one number that describes neither. Report each side (x at or below ${num(t.at)}: ${side(t.below)}; above: ${side(t.above)}) or the curve itself, and look at the scatter.${orderNote}${farNote}`,
@@ -191,8 +193,7 @@ export function recommendCoefficient(report: CheckReport, chosen: CorrelationRes
   if (chosen.name === 'phi') {
     return keep(`Both columns take two values, so phi (Pearson on a 2 x 2 table) is the usual coefficient and the shape checks do not apply.${orderWords}`, order ? 'effective-rows' : null);
   }
-  const outlier = rowOf(report, 'outliers');
-  if (outlier.verdict === 'problem' && outlier.detail.farOut === 1) {
+  if (farOut) {
     const rec = toRobust(`Check ${outlier.place} for a data-entry error first: its value lies far outside the rest of its column (more than three interquartile ranges beyond the quartiles, Tukey 1977), and ${outlier.effect?.text ?? 'it moves r'}. If the value is right, report a coefficient that resists it.`);
     return { ...rec, reason: `${rec.reason}${orderWords}`, remedy: 'check-row' };
   }

@@ -9,6 +9,7 @@ import { PreparedPairs } from '../../../../src/stats/correlation/prepared';
 import { conclude } from '../../../../src/stats/verdict/conclusion';
 import { formatR } from '../../../../src/stats/format';
 import { readCorrelation } from '../../../../src/stats/verdict/advice';
+import { pearsonReference } from '../../../helpers/pearson-reference';
 
 /** Standard normal numbers from a fixed seed (an LCG and Box-Muller): the same on every machine. */
 function normals(seed: number, n: number): Float64Array {
@@ -132,16 +133,6 @@ test('two five-point rating items: the polychoric correlation is named', () => {
   expect(c.recommendation.reason).toMatch(/rating-scale items/);
 });
 
-/** Pearson's r by its definition, two-pass (the handbook formula, not the project's co-moments). */
-function rByDefinition(x: ArrayLike<number>, y: ArrayLike<number>): number {
-  const n = x.length;
-  let mx = 0, my = 0;
-  for (let i = 0; i < n; i++) { mx += x[i]; my += y[i]; }
-  mx /= n; my /= n;
-  let sxy = 0, sxx = 0, syy = 0;
-  for (let i = 0; i < n; i++) { const a = x[i] - mx, b = y[i] - my; sxy += a * b; sxx += a * a; syy += b * b; }
-  return sxy / Math.sqrt(sxx * syy);
-}
 /** Fisher's (1921) interval tanh(atanh r +/- z / sqrt(n - 3)); z from R 4.2.2: qnorm(0.95) = 1.6448536269514715,
  *  qnorm(0.975) = 1.9599639845400536. */
 const fisherEnds = (r: number, n: number, z: number) => [Math.tanh(Math.atanh(r) - z / Math.sqrt(n - 3)), Math.tanh(Math.atanh(r) + z / Math.sqrt(n - 3))];
@@ -152,7 +143,7 @@ test('100,000 rows and r near 0.02: significant, yet read as real but negligible
   const z = normals(22, n);
   const y = Float64Array.from(x, (v, i) => 50 + 0.2 * v + 10 * z[i]);
   const { c } = verdictOf(x, y);
-  const r = rByDefinition(x, y);
+  const r = pearsonReference(x, y);
   const [lo90, hi90] = fisherEnds(r, n, 1.6448536269514715);
   const [, hi95] = fisherEnds(r, n, 1.9599639845400536);
   // The premise, from the formulas above: the 95% interval excludes 0 while the 90% one lies within +/-0.1.
@@ -178,7 +169,7 @@ test('a clear correlation that reaches beyond 0.1 is not called negligible, howe
   const z = normals(24, n);
   const y = Float64Array.from(x, (v, i) => 0.3 * v + z[i]);
   const { c } = verdictOf(x, y);
-  const [lo90] = fisherEnds(rByDefinition(x, y), n, 1.6448536269514715);
+  const [lo90] = fisherEnds(pearsonReference(x, y), n, 1.6448536269514715);
   expect(lo90).toBeGreaterThan(0.1);
   expect(c.equivalence).toBeNull();
   expect(c.reading).not.toMatch(/negligibl/);
